@@ -54,9 +54,9 @@ use crate::dimension::Dimension;
 use crate::quantity::Quantity;
 use crate::system::{Terms, UnitSystem};
 use crate::table::{
-    BTU_, CFM, DEG_C, DEG_F, DELTA_F, FOOT, FPM, G_KG, GALLON, GR_LB, HOUR, HP, INWG, KBTU, KELVIN,
-    KG, KG_KG, KJ, KPA, KW, LB_LB, LITRE, M, MINUTE, PA, PERCENT, PERCENT_RH, PERSON, POUND, PSIA,
-    SECOND, TON, WATT,
+    BTU_, CFM, DEG_C, DEG_F, DELTA_C, DELTA_F, FOOT, FPM, G_KG, GALLON, GR_LB, HOUR, HP, INWG,
+    KBTU, KG, KG_KG, KJ, KPA, KW, LB_LB, LITRE, M, MINUTE, PA, PERCENT, PERCENT_RH, PERSON, POUND,
+    PSIA, SECOND, TON, WATT,
 };
 use crate::unit::Unit;
 
@@ -254,7 +254,7 @@ impl Measure {
             X::TemperatureDifference => (
                 Dimension::TEMPERATURE_DIFFERENCE,
                 side(t!([(&DELTA_F, 1)]), "°F", TO_0_1),
-                side(t!([(&KELVIN, 1)]), "K", TO_0_1),
+                side(t!([(&DELTA_C, 1)]), "K", TO_0_1),
             ),
             X::RelativeHumidity => (
                 Dimension::RATIO,

@@ -38,9 +38,10 @@
 //! # Temperatures
 //!
 //! A temperature and a temperature difference are different dimensions. `°F − °F` is a
-//! difference, `°F + °F` is an error, `°C + K` is a temperature (a kelvin literal next to a
-//! temperature is an increment), and a key that takes a difference reads a temperature literal
-//! as one ([`Quantity::as_difference`], done by [`Quantity::require`]):
+//! difference, `°F + °F` is an error, `°C + K` is a temperature (in arithmetic a kelvin literal
+//! is a difference: kelvin is the SI unit of temperature difference), and a key that takes a
+//! difference reads a temperature literal as one ([`Quantity::as_difference`], done by
+//! [`Quantity::require`]):
 //!
 //! ```
 //! use plenum_units::{Dimension, Quantity, QuantityError, Unit};

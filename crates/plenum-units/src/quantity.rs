@@ -293,8 +293,16 @@ impl Quantity {
         self.in_unit(&unit)
     }
 
-    /// Raises the quantity to an integer power (`(20 ft)^2`).
+    /// Raises the quantity to an integer power (`(20 ft)^2`). An absolute temperature only to
+    /// the power 1; a kelvin literal is a difference here.
     pub fn powi(self, n: i32) -> Result<Quantity, QuantityError> {
+        if n != 1 {
+            return self.kelvin_as_difference().powi_resolved(n);
+        }
+        self.powi_resolved(n)
+    }
+
+    fn powi_resolved(self, n: i32) -> Result<Quantity, QuantityError> {
         if self.dim.is_absolute_temperature() {
             return if n == 1 {
                 Ok(self.computed())
@@ -331,9 +339,17 @@ impl Quantity {
         })
     }
 
-    /// A literal in kelvin (`3 K`), which next to another temperature reads as a difference.
-    fn is_kelvin_literal(&self) -> bool {
-        matches!(self.origin, Origin::Scale(TemperatureScale::Kelvin, _))
+    /// A kelvin literal (`3 K`) as a difference: in arithmetic, kelvin is the SI unit of
+    /// temperature difference. Anything else unchanged.
+    fn kelvin_as_difference(self) -> Quantity {
+        match self.origin {
+            Origin::Scale(TemperatureScale::Kelvin, reading) => Quantity {
+                value: reading,
+                dim: DIFF,
+                origin: Origin::Computed,
+            },
+            _ => self,
+        }
     }
 }
 
@@ -350,20 +366,17 @@ const DIFF: Dimension = Dimension::TEMPERATURE_DIFFERENCE;
 impl Add for Quantity {
     type Output = Result<Quantity, QuantityError>;
 
-    /// Sum of equal dimensions. Temperatures: absolute + difference = absolute (either order);
-    /// absolute + absolute is [`QuantityError::AbsoluteSum`], except that a kelvin literal next
-    /// to an absolute temperature is read as a difference (`14 °C + 3 K` is 17 °C; two kelvin
-    /// literals add as differences).
+    /// Sum of equal dimensions. Temperatures: temperature + difference = temperature (either
+    /// order); difference + difference = difference; temperature + temperature is
+    /// [`QuantityError::AbsoluteSum`]. A kelvin literal is a difference here (`14 °C + 3 K` is
+    /// 17 °C, `3 K + 2 K` is 5 K of difference).
     fn add(self, rhs: Quantity) -> Self::Output {
-        let sum = self.value + rhs.value;
-        match (self.dim, rhs.dim) {
-            (ABS, ABS) => match (self.is_kelvin_literal(), rhs.is_kelvin_literal()) {
-                (false, false) => Err(QuantityError::AbsoluteSum),
-                (true, true) => Quantity::with(sum, DIFF),
-                _ => Quantity::with(sum, ABS),
-            },
+        let (a, b) = (self.kelvin_as_difference(), rhs.kelvin_as_difference());
+        let sum = a.value + b.value;
+        match (a.dim, b.dim) {
+            (ABS, ABS) => Err(QuantityError::AbsoluteSum),
             (ABS, DIFF) | (DIFF, ABS) => Quantity::with(sum, ABS),
-            (a, b) if a == b => Quantity::with(sum, a),
+            (x, y) if x == y => Quantity::with(sum, x),
             (left, right) => Err(QuantityError::Incompatible {
                 op: '+',
                 left,
@@ -376,22 +389,25 @@ impl Add for Quantity {
 impl Sub for Quantity {
     type Output = Result<Quantity, QuantityError>;
 
-    /// Difference of equal dimensions. Temperatures: absolute − absolute = difference;
-    /// absolute − difference = absolute; difference − absolute is an error; a kelvin literal
-    /// subtracted from another scale's temperature is a difference (`20 °C - 3 K` is 17 °C).
+    /// Difference of equal dimensions. Temperatures: temperature − temperature = difference;
+    /// temperature − difference = temperature; difference − difference = difference;
+    /// difference − temperature is [`QuantityError::DifferenceMinusAbsolute`]. A kelvin literal
+    /// is a difference here (`20 °C - 3 K` is 17 °C), except on the left of a temperature of
+    /// another scale, where only the absolute reading makes sense (`300 K - 14 °C` is 12.85 K
+    /// of difference).
     fn sub(self, rhs: Quantity) -> Self::Output {
-        let diff = self.value - rhs.value;
-        match (self.dim, rhs.dim) {
-            (ABS, ABS) => {
-                if rhs.is_kelvin_literal() && !self.is_kelvin_literal() {
-                    Quantity::with(diff, ABS)
-                } else {
-                    Quantity::with(diff, DIFF)
-                }
-            }
+        let b = rhs.kelvin_as_difference();
+        let a = if b.dim == ABS {
+            self
+        } else {
+            self.kelvin_as_difference()
+        };
+        let diff = a.value - b.value;
+        match (a.dim, b.dim) {
+            (ABS, ABS) => Quantity::with(diff, DIFF),
             (ABS, DIFF) => Quantity::with(diff, ABS),
             (DIFF, ABS) => Err(QuantityError::DifferenceMinusAbsolute),
-            (a, b) if a == b => Quantity::with(diff, a),
+            (x, y) if x == y => Quantity::with(diff, x),
             (left, right) => Err(QuantityError::Incompatible {
                 op: '-',
                 left,
@@ -405,8 +421,15 @@ impl Mul for Quantity {
     type Output = Result<Quantity, QuantityError>;
 
     /// Product; dimensions multiply. An absolute temperature is refused, even times a plain
-    /// number (2 × 20 °C is not 2 × 68 °F).
+    /// number (2 × 20 °C is not 2 × 68 °F); a kelvin literal is a difference here.
     fn mul(self, rhs: Quantity) -> Self::Output {
+        let (a, b) = (self.kelvin_as_difference(), rhs.kelvin_as_difference());
+        Quantity::mul_resolved(a, b)
+    }
+}
+
+impl Quantity {
+    fn mul_resolved(self, rhs: Quantity) -> Result<Quantity, QuantityError> {
         if self.dim.is_absolute_temperature() || rhs.dim.is_absolute_temperature() {
             return Err(QuantityError::AbsoluteScaled);
         }
@@ -421,8 +444,16 @@ impl Mul for Quantity {
 impl Div for Quantity {
     type Output = Result<Quantity, QuantityError>;
 
-    /// Quotient; dimensions divide. Division by zero and absolute temperatures are refused.
+    /// Quotient; dimensions divide. Division by zero and absolute temperatures are refused; a
+    /// kelvin literal is a difference here.
     fn div(self, rhs: Quantity) -> Self::Output {
+        let (a, b) = (self.kelvin_as_difference(), rhs.kelvin_as_difference());
+        Quantity::div_resolved(a, b)
+    }
+}
+
+impl Quantity {
+    fn div_resolved(self, rhs: Quantity) -> Result<Quantity, QuantityError> {
         if self.dim.is_absolute_temperature() || rhs.dim.is_absolute_temperature() {
             return Err(QuantityError::AbsoluteScaled);
         }
@@ -440,11 +471,13 @@ impl Div for Quantity {
 impl Neg for Quantity {
     type Output = Result<Quantity, QuantityError>;
 
-    /// Negation; refused for an absolute temperature (write `-4 °F` as a negative literal).
+    /// Negation; refused for an absolute temperature (write `-4 °F` as a negative literal); a
+    /// kelvin literal is a difference here.
     fn neg(self) -> Self::Output {
-        if self.dim.is_absolute_temperature() {
+        let this = self.kelvin_as_difference();
+        if this.dim.is_absolute_temperature() {
             return Err(QuantityError::AbsoluteScaled);
         }
-        Quantity::with(-self.value, self.dim)
+        Quantity::with(-this.value, this.dim)
     }
 }

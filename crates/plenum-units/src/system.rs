@@ -103,8 +103,8 @@ const fn pref(dim: Dimension, ip: Terms, si: Terms) -> Preferred {
 }
 
 use table::{
-    BTU_, CFM, DEG_C, DEG_F, DELTA_F, FOOT, FPM, HOUR, KELVIN, KG, KG_KG, KJ, KPA, KW, LB_LB,
-    LITRE, M, PERSON, POUND, PSIA, SECOND, TON, WATT,
+    BTU_, CFM, DEG_C, DEG_F, DELTA_C, DELTA_F, FOOT, FPM, HOUR, KELVIN, KG, KG_KG, KJ, KPA, KW,
+    LB_LB, LITRE, M, PERSON, POUND, PSIA, SECOND, TON, WATT,
 };
 
 static PREFERRED: [Preferred; 24] = [
@@ -115,11 +115,14 @@ static PREFERRED: [Preferred; 24] = [
     pref(Dimension::MASS, &[(&POUND, 1)], &[(&KG, 1)]),
     pref(Dimension::TIME, &[(&HOUR, 1)], &[(&SECOND, 1)]),
     pref(Dimension::TEMPERATURE, &[(&DEG_F, 1)], &[(&DEG_C, 1)]),
-    pref(
-        Dimension::TEMPERATURE_DIFFERENCE,
-        &[(&DELTA_F, 1)],
-        &[(&KELVIN, 1)],
-    ),
+    Preferred {
+        dim: Dimension::TEMPERATURE_DIFFERENCE,
+        ip: &[(&DELTA_F, 1)],
+        ip_label: Some("°F"),
+        // A kelvin of difference, written with the difference symbol so it is never absolute.
+        si: &[(&DELTA_C, 1)],
+        si_label: Some("K"),
+    },
     pref(Dimension::ENERGY, &[(&BTU_, 1)], &[(&KJ, 1)]),
     pref(
         Dimension::HEAT_FLOW,

@@ -808,8 +808,9 @@ impl fmt::Display for Unit {
 }
 
 /// The nearest known symbol to an unknown one: a spelling equal but for letter case, else the
-/// closest by edit distance (at most 2, and less than the symbol's length unless the known
-/// spelling contains it, so `F` finds `°F`).
+/// closest by edit distance — at most 1 edit for a symbol of up to 4 characters, 2 for a longer
+/// one, and for a symbol of 1 or 2 characters only a spelling that contains it (`F` finds
+/// `°F`, `x` finds nothing). Ties go to the earlier table entry.
 pub(crate) fn nearest_symbol(symbol: &str) -> Option<&'static str> {
     let spellings = || {
         table::TABLE
@@ -823,7 +824,8 @@ pub(crate) fn nearest_symbol(symbol: &str) -> Option<&'static str> {
     let mut best: Option<(usize, &'static str)> = None;
     for (s, canon) in spellings() {
         let d = edit_distance(symbol, s);
-        let close = d <= 2 && (d < len || s.contains(symbol));
+        let max = if len <= 4 { 1 } else { 2 };
+        let close = d <= max && (len > 2 || s.contains(symbol));
         if close && best.is_none_or(|(bd, _)| d < bd) {
             best = Some((d, canon));
         }
@@ -831,21 +833,32 @@ pub(crate) fn nearest_symbol(symbol: &str) -> Option<&'static str> {
     best.map(|(_, canon)| canon)
 }
 
-/// Levenshtein distance over characters.
+/// Edit distance over characters (optimal string alignment: insertions, deletions,
+/// substitutions and transpositions of neighbours, so `cmf` is one edit from `cfm`).
 fn edit_distance(a: &str, b: &str) -> usize {
     let a: Vec<char> = a.chars().collect();
     let b: Vec<char> = b.chars().collect();
-    let mut prev: Vec<usize> = (0..=b.len()).collect();
-    let mut cur = vec![0; b.len() + 1];
-    for (i, ca) in a.iter().enumerate() {
-        cur[0] = i + 1;
-        for (j, cb) in b.iter().enumerate() {
-            let cost = usize::from(ca != cb);
-            cur[j + 1] = (prev[j] + cost).min(prev[j + 1] + 1).min(cur[j] + 1);
-        }
-        std::mem::swap(&mut prev, &mut cur);
+    let w = b.len() + 1;
+    let mut d = vec![0usize; (a.len() + 1) * w];
+    for i in 0..=a.len() {
+        d[i * w] = i;
     }
-    prev[b.len()]
+    for (j, cell) in d.iter_mut().enumerate().take(w) {
+        *cell = j;
+    }
+    for i in 1..=a.len() {
+        for j in 1..=b.len() {
+            let cost = usize::from(a[i - 1] != b[j - 1]);
+            let mut v = (d[(i - 1) * w + j - 1] + cost)
+                .min(d[(i - 1) * w + j] + 1)
+                .min(d[i * w + j - 1] + 1);
+            if i > 1 && j > 1 && a[i - 1] == b[j - 2] && a[i - 2] == b[j - 1] {
+                v = v.min(d[(i - 2) * w + j - 2] + 1);
+            }
+            d[i * w + j] = v;
+        }
+    }
+    d[a.len() * w + b.len()]
 }
 
 #[cfg(test)]
@@ -857,7 +870,8 @@ mod tests {
         assert_eq!(edit_distance("kbtu", "kBtu"), 1);
         assert_eq!(edit_distance("", "abc"), 3);
         assert_eq!(edit_distance("°F", "°F"), 0);
-        assert_eq!(edit_distance("cmf", "cfm"), 2);
+        assert_eq!(edit_distance("cmf", "cfm"), 1);
+        assert_eq!(edit_distance("abc", "ca"), 3);
     }
 
     #[test]
@@ -866,5 +880,7 @@ mod tests {
         assert_eq!(nearest_symbol("Cfm"), Some("cfm"));
         assert_eq!(nearest_symbol("F"), Some("°F"));
         assert_eq!(nearest_symbol("zzzzzz"), None);
+        assert_eq!(nearest_symbol("x"), None);
+        assert_eq!(nearest_symbol("sqm"), None);
     }
 }

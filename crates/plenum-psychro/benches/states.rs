@@ -42,6 +42,8 @@ fn bench(c: &mut Criterion) {
         })
         .collect();
     let mut g = c.benchmark_group("psychro");
+    g.measurement_time(std::time::Duration::from_secs(3));
+    g.warm_up_time(std::time::Duration::from_secs(1));
     g.throughput(Throughput::Elements(ip_in.len() as u64));
     g.bench_function("ip_state_from_db_wb", |b| {
         b.iter(|| {
@@ -65,11 +67,22 @@ fn bench(c: &mut Criterion) {
             acc
         })
     });
+    // The same conditions as (db, W): the wet bulb alone, by the root finder.
+    let ip_w: Vec<(f64, f64, f64)> = ip_in
+        .iter()
+        .filter_map(|&(db, wb, p)| ip::State::from_db_wb(db, wb, p).ok())
+        .map(|s| (s.dry_bulb(), s.hum_ratio(), s.pressure()))
+        .collect();
+    assert_eq!(
+        ip_w.len(),
+        ip_in.len(),
+        "every benchmark condition is a valid state"
+    );
     g.bench_function("ip_wet_bulb_from_db_w", |b| {
         b.iter(|| {
             let mut acc = 0.0;
-            for &(db, _, p) in &ip_in {
-                if let Ok(t) = ip::wet_bulb(black_box(db), black_box(0.006), black_box(p)) {
+            for &(db, w, p) in &ip_w {
+                if let Ok(t) = ip::wet_bulb(black_box(db), black_box(w), black_box(p)) {
                     acc += t;
                 }
             }

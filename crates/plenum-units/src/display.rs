@@ -1,54 +1,4 @@
 //! Rendering quantities in IP or SI with the trade's usual precision.
-//!
-//! A [`Measure`] says what a number is *for* — a zone load, a coil capacity, a supply airflow, a
-//! chilled-water flow — which decides the unit and the rounding. The rules (the precision is
-//! *common practice* of HVAC design documents, not a published standard):
-//!
-//! | measure | IP | SI |
-//! | --- | --- | --- |
-//! | `Load` | Btu/h to 10 | W to 10 |
-//! | `LoadCompact` | kBtu/h to 0.1 | kW to 0.1 |
-//! | `Capacity` | ton to 0.1 | kW to 0.1 |
-//! | `Power` (fans, motors) | hp to 0.01 | kW to 0.01 |
-//! | `Airflow` | cfm to 5 | L/s to 1 |
-//! | `WaterFlow` | gpm to 0.1 | L/s to 0.01 |
-//! | `Temperature` | °F to 0.1 | °C to 0.1 |
-//! | `TemperatureDifference` | °F to 0.1 | K to 0.1 |
-//! | `RelativeHumidity` | %rh to 1 | %rh to 1 |
-//! | `HumidityRatio` | lb/lb, 4 significant digits | kg/kg, 4 significant digits |
-//! | `HumidityRatioGrains` | gr/lb to 0.1 | g/kg to 0.01 |
-//! | `Enthalpy` | Btu/lb to 0.01 | kJ/kg to 0.01 |
-//! | `Pressure` (barometric) | psia to 0.001 | kPa to 0.001 |
-//! | `StaticPressure` | in.wg to 0.01 | Pa to 1 |
-//! | `Length` | ft to 1 | m to 0.1 |
-//! | `Area` | ft² to 1 | m² to 0.1 |
-//! | `Volume` | ft³ to 1 | m³ to 0.01 |
-//! | `Mass` | lb to 0.1 | kg to 0.1 |
-//! | `Time` | h to 0.01 | h to 0.01 |
-//! | `Energy` | Btu to 1 | kJ to 0.1 |
-//! | `Velocity` | fpm to 1 | m/s to 0.01 |
-//! | `AirflowPerPerson` | cfm/person to 0.1 | L/s/person to 0.1 |
-//! | `AirflowPerArea` | cfm/ft² to 0.01 | L/s/m² to 0.01 |
-//! | `PowerPerArea` | W/ft² to 0.01 | W/m² to 0.1 |
-//! | `AirflowPerCapacity` | cfm/ton to 1 | L/s/kW to 0.1 |
-//! | `MassFlow` | lb/h to 10 | kg/s to 0.001 |
-//! | `MoistureFlow` (condensate) | lb/h to 0.1 | kg/h to 0.1 |
-//! | `Density` | lb/ft³ to 0.0001 | kg/m³ to 0.001 |
-//! | `SpecificVolume` | ft³/lb to 0.01 | m³/kg to 0.0001 |
-//! | `Percent` | % to 0.1 | % to 0.1 |
-//! | `Factor` (SHR, bypass factor) | to 0.01, no unit | to 0.01, no unit |
-//! | `Count` | people to 1 | people to 1 |
-//!
-//! Rounding is half away from zero on the decimal value the reader sees (12.45 ton prints
-//! 12.5 even though 12.45 is 12.4499… in binary: values within 1e-12 relative of a half round
-//! away). The shown decimals are fixed by the step (`12.0 ton`, `4,830 cfm`). Integer parts
-//! take `,` thousands separators in both systems. A result that rounds to zero prints `0`
-//! with no minus sign. The unit spelling is one per measure: `ton` (never `tons`), `%rh` for
-//! relative humidity (as the file format writes it), `people` (`person` for exactly 1).
-//!
-//! Every function here is total: a NaN or infinite value (which a [`Quantity`] cannot hold,
-//! but a raw `f64` can) renders as `—`, and a quantity of the wrong dimension for the measure is
-//! rendered by [`format_auto`] instead, in a unit that is true to its dimension.
 
 use crate::dimension::Dimension;
 use crate::quantity::Quantity;
@@ -60,8 +10,55 @@ use crate::table::{
 };
 use crate::unit::Unit;
 
-/// What a displayed number is for; decides its unit and precision in each system (see the
-/// [module documentation](self) for the table).
+/// What a displayed number is *for* — a zone load, a coil capacity, a supply airflow, a
+/// chilled-water flow — which decides the unit and the rounding. The rules (the precision is
+/// *common practice* of HVAC design documents, not a published standard):
+///
+/// | measure | IP | SI |
+/// | --- | --- | --- |
+/// | `Load` | Btu/h to 10 | W to 10 |
+/// | `LoadCompact` | kBtu/h to 0.1 | kW to 0.1 |
+/// | `Capacity` | ton to 0.1 | kW to 0.1 |
+/// | `Power` (fans, motors) | hp to 0.01 | kW to 0.01 |
+/// | `Airflow` | cfm to 5 | L/s to 1 |
+/// | `WaterFlow` | gpm to 0.1 | L/s to 0.01 |
+/// | `Temperature` | °F to 0.1 | °C to 0.1 |
+/// | `TemperatureDifference` | °F to 0.1 | K to 0.1 |
+/// | `RelativeHumidity` | %rh to 1 | %rh to 1 |
+/// | `HumidityRatio` | lb/lb, 4 significant digits | kg/kg, 4 significant digits |
+/// | `HumidityRatioGrains` | gr/lb to 0.1 | g/kg to 0.01 |
+/// | `Enthalpy` | Btu/lb to 0.01 | kJ/kg to 0.01 |
+/// | `Pressure` (barometric) | psia to 0.001 | kPa to 0.001 |
+/// | `StaticPressure` | in.wg to 0.01 | Pa to 1 |
+/// | `Length` | ft to 1 | m to 0.1 |
+/// | `Area` | ft² to 1 | m² to 0.1 |
+/// | `Volume` | ft³ to 1 | m³ to 0.01 |
+/// | `Mass` | lb to 0.1 | kg to 0.1 |
+/// | `Time` | h to 0.01 | h to 0.01 |
+/// | `Energy` | Btu to 1 | kJ to 0.1 |
+/// | `Velocity` | fpm to 1 | m/s to 0.01 |
+/// | `AirflowPerPerson` | cfm/person to 0.1 | L/s/person to 0.1 |
+/// | `AirflowPerArea` | cfm/ft² to 0.01 | L/s/m² to 0.01 |
+/// | `PowerPerArea` | W/ft² to 0.01 | W/m² to 0.1 |
+/// | `AirflowPerCapacity` | cfm/ton to 1 | L/s/kW to 0.1 |
+/// | `MassFlow` | lb/h to 10 | kg/s to 0.001 |
+/// | `MoistureFlow` (condensate) | lb/h to 0.1 | kg/h to 0.1 |
+/// | `Density` | lb/ft³ to 0.0001 | kg/m³ to 0.001 |
+/// | `SpecificVolume` | ft³/lb to 0.01 | m³/kg to 0.0001 |
+/// | `Percent` | % to 0.1 | % to 0.1 |
+/// | `Factor` (SHR, bypass factor) | to 0.01, no unit | to 0.01, no unit |
+/// | `Count` | people to 1 | people to 1 |
+///
+/// Rounding is half away from zero on the decimal value the reader sees (12.45 ton prints
+/// 12.5 even though 12.45 is 12.4499… in binary: values within 1e-12 relative of a half round
+/// away). The shown decimals are fixed by the step (`12.0 ton`, `4,830 cfm`). Integer parts
+/// take `,` thousands separators in both systems. A result that rounds to zero prints `0`
+/// with no minus sign. The unit spelling is one per measure: `ton` (never `tons`), `%rh` for
+/// relative humidity (as the file format writes it), `people` (`person` for exactly 1).
+///
+/// Every function here is total: a NaN or infinite value (which a [`Quantity`] cannot hold,
+/// but a raw `f64` can) renders as `—`, and a quantity of the wrong dimension for the measure is
+/// rendered by [`format_auto`] instead, in a unit that is true to its dimension.
 #[derive(Clone, Copy, Debug, PartialEq, Eq, Hash)]
 pub enum Measure {
     /// A heat gain or load: Btu/h to 10 | W to 10.
@@ -511,9 +508,10 @@ impl Measure {
 }
 
 /// A quantity in `system`, in the measure its dimension usually takes
-/// ([`Measure::for_dimension`]; `%rh` literals as [`Measure::RelativeHumidity`]), else as an SI
-/// value to 4 significant digits with the dimension's SI formula. For the hover's "value in
-/// the other unit system" and for `let` values.
+/// ([`Measure::for_dimension`]; `%rh` literals as [`Measure::RelativeHumidity`]; a velocity
+/// below 10 fpm as [`Measure::AirflowPerArea`], since 1 cfm/ft² is 1 fpm), else as an SI value
+/// to 4 significant digits with the dimension's SI formula. For the hover's "value in the other
+/// unit system" and for `let` values; a key with a known meaning should name its [`Measure`].
 ///
 /// ```
 /// use plenum_units::{format_auto, Quantity, Unit, UnitSystem};
@@ -530,9 +528,15 @@ pub fn format_auto(q: &Quantity, system: UnitSystem) -> String {
     }
 }
 
+/// 10 fpm in m/s: below it, [`format_auto`] reads a velocity as a ventilation rate per area.
+const SLOW: f64 = 10.0 * 0.3048 / 60.0;
+
 fn auto_parts(q: &Quantity, system: UnitSystem) -> (String, String) {
     let measure = if q.is_relative_humidity() {
         Some(Measure::RelativeHumidity)
+    } else if q.dimension() == Dimension::AIRFLOW_PER_AREA && q.value().abs() < SLOW {
+        // Same dimension as velocity; below 10 fpm it is a ventilation rate per area.
+        Some(Measure::AirflowPerArea)
     } else {
         Measure::for_dimension(q.dimension())
     };

@@ -80,6 +80,40 @@
 //! # Ok::<(), Box<dyn std::error::Error>>(())
 //! ```
 
+//! # Decisions
+//!
+//! * **Shared dimensions.** Heat flow and power are one dimension ("heat flow"); airflow and
+//!   water flow are one volume-flow dimension, named "airflow" because every volume flow a
+//!   design file enters is air (the engine's water flow is an output, shown through
+//!   [`Measure::WaterFlow`]); velocity and ventilation rate per area are one dimension (1 cfm/ft²
+//!   is exactly 1 fpm), named "ventilation rate per area or velocity". The `Dimension`
+//!   constants `POWER`, `WATER_FLOW`, `VOLUME_FLOW` and `AIRFLOW_PER_AREA` are aliases.
+//! * **Humidity ratio is not a ratio.** Water mass is its own base dimension, so `0.0098
+//!   lb/lb` never passes for `50 %`. `lb/lb`, `kg/kg`, `gr/lb` and `g/kg` are single symbols
+//!   (and `lb/lb` is not `lb` over `lb`).
+//! * **Temperature scales.** A lone `°F`, `°C`, `K` or `°R` (also `degF`, `degC`, `degR`) is an
+//!   absolute temperature. Inside a compound it is one degree, a difference: `°F/h` is a rate,
+//!   `Btu/(lb·°F)` a specific heat — both accepted. A bare `R`, `F` or `C` is not a temperature
+//!   (`F` gets `°F` as its nearest unit). `Δ°F` and `Δ°C` write a difference explicitly.
+//! * **Kelvin literals.** In arithmetic a kelvin literal is a difference (`14 °C + 3 K` is
+//!   17 °C, `1.08 * 18 K` is fine), except on the left of another scale's temperature
+//!   (`300 K - 14 °C` is 12.85 K of difference). A `°F` or `°C` literal is never silently a
+//!   difference inside an expression: `75 °F + 3 °F` is an error; write `3 Δ°F`. Only a key
+//!   that takes a difference reads a whole-value temperature literal as one (`supply_dt 18 °F`).
+//! * **Absolute temperatures do not scale.** Multiplying, dividing, raising to a power (other
+//!   than 1) or negating one is an error, even by a plain number: the result would depend on
+//!   the scale's zero.
+//! * **`%rh`** is a ratio like `%`; the literal remembers it was written `%rh`
+//!   ([`Quantity::is_relative_humidity`], [`Unit::is_relative_humidity`]) so an air state can
+//!   tell relative humidity from another percentage.
+//! * **Ambiguous products.** `L/s/person` reads left to right as `L/(s·person)`, but a product
+//!   after a division (`Btu/h·ft²`) is an error whose suggestion adds the parentheses
+//!   (`Btu/(h·ft²)`), rather than a silent guess (NIST SP 811 §6.1.6 asks for parentheses).
+//! * **Letter case matters** (`mm` is not `Mm`); a few trade spellings are aliases (`CFM`,
+//!   `GPM`, `FPM`, `BTU`, `Btuh`, `hr`, `lbs`, `tons`), and an unknown symbol that differs only
+//!   in case gets the right one as its suggestion.
+//! * **No runtime dependencies.** Errors implement [`std::error::Error`] by hand.
+
 mod dimension;
 mod display;
 mod quantity;

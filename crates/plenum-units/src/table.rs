@@ -2,7 +2,7 @@
 //!
 //! Factors are from NIST Special Publication 811 (2008 edition), *Guide for the Use of the
 //! International System of Units*, appendix B.8 (factors in alphabetical order) and B.9 (by kind
-//! of quantity), cited beside each entry as "B.8: <unit> → <SI unit> <printed factor>". Where
+//! of quantity), cited beside each entry as `B.8: unit → SI unit printed-factor`. Where
 //! SP 811 marks a factor exact, or where the factor follows exactly from exact definitions (the
 //! international foot and pound, standard gravity 9.806 65 m/s², the IT Btu), the exact value is
 //! used and the printed 7-digit factor is checked in `tests/nist.rs`. The printed factors were

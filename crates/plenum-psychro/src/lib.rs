@@ -86,6 +86,38 @@
 //! ratio and pressure exactly (NIST SP 811) and re-evaluate every other
 //! property in the target system: never convert an enthalpy by a factor alone.
 //!
+//! # The wet bulb near freezing
+//!
+//! The handbook's two wet-bulb forms do not meet at the freezing point (the
+//! ice form carries the heat of fusion). For a dry bulb above freezing and a
+//! wet bulb within about a degree of it, a humidity ratio can therefore
+//! satisfy both forms (two wet bulbs, up to about 1.1 °F apart) or neither.
+//! Where neither does, the wet bulb is the freezing point itself; where both
+//! do, the crate takes the root that bisection of [dew point, dry bulb]
+//! selects, which is psychrolib's procedure, so that the results match the
+//! reference implementation named by the project's accuracy target. CoolProp,
+//! whose model has no such jump, differs from both by up to 1.25 °F there.
+//!
+//! # Agreement with the reference libraries
+//!
+//! Measured over every row of the committed tables in
+//! `tests/reference/psychro/` (dry bulb −20…120 °F, RH 5…100 %, 0…10,000 ft,
+//! plus dry-bulb/wet-bulb pairs), see `tests/reference.rs`:
+//!
+//! * psychrolib 2.5.0 (the handbook equations): W, h, v, ρ within 7·10⁻¹⁰
+//!   relative (SI) and 3·10⁻⁷ (IP, where the handbook's 0.370486 is rounded
+//!   from psychrolib's 53.350/144); at wet bulb = dry bulb below freezing the
+//!   IP ice form gives W 6.6·10⁻⁵ above saturation and the crate keeps W at
+//!   saturation. Wet bulb within 0.0009 °F (psychrolib's own bisection
+//!   tolerance), dew point within 1·10⁻⁶ °F.
+//! * CoolProp 8.0.0 (real-gas humid air, `HAPropsSI`): W within 0.61 %, dew
+//!   point within 0.034 °F, wet bulb within 0.052 °F except within 1.5 °F of
+//!   freezing (up to 1.25 °F, see above), specific volume within 0.11 %. For
+//!   the same (dry bulb, wet bulb) of very dry air W differs by up to 9 %:
+//!   the difference of the two models' saturation humidity ratio (CoolProp's
+//!   enhancement factor, about 0.45 %) is multiplied by W_s(t*)/W in the
+//!   energy balance.
+//!
 //! # Root finders
 //!
 //! The wet bulb (eq. 33/35 solved for t*) and the dew point (eq. 5/6

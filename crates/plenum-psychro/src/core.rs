@@ -330,7 +330,7 @@ pub(crate) fn wet_bulb_above(s: &Sys, t: f64, w: f64, p: f64, dp_hint: Option<f6
         }
     };
     // The bracket [lo, hi] to finish in, with its phase.
-    let (phase, mut lo, mut hi, mut g_lo, g_hi) = if t >= s.freezing {
+    let (phase, mut lo, hi, mut g_lo, g_hi) = if t >= s.freezing {
         let g_water = g(Phase::Water, s.freezing)?;
         let g_ice = g(Phase::Ice, s.freezing)?;
         match (g_water <= 0.0, g_ice > 0.0) {
@@ -398,11 +398,6 @@ pub(crate) fn wet_bulb_above(s: &Sys, t: f64, w: f64, p: f64, dp_hint: Option<f6
     }
     let f = |x: f64| g(phase, x);
     let t_star = root::solve(f, lo, hi, g_lo, g_hi, s.t_tol, Quantity::WetBulb)?;
-    // Keep the ice form's root strictly on its side of freezing.
-    hi = match phase {
-        Phase::Ice if hi >= s.freezing => hi.min(s.freezing),
-        _ => hi,
-    };
     output(t_star.clamp(lo, hi), Quantity::WetBulb)
 }
 

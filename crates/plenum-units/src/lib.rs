@@ -123,7 +123,7 @@ mod unit;
 
 pub use dimension::{Base, Dimension};
 pub use display::{Measure, format_auto};
-pub use quantity::{Quantity, QuantityError};
+pub use quantity::{ParseQuantityError, Quantity, QuantityError};
 pub use system::{UnitSystem, UnknownUnitSystem};
 pub use table::{TemperatureScale, UnitDef, catalog};
 pub use unit::{Unit, UnitError};

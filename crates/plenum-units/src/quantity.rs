@@ -1,12 +1,12 @@
 //! Quantities: a value in SI base units with its dimension, and checked arithmetic.
 
 use std::fmt;
-use std::ops::{Add, Div, Mul, Neg, Sub};
+use std::ops::{Add, Div, Mul, Neg, Range, Sub};
 
 use crate::dimension::Dimension;
 use crate::system::UnitSystem;
 use crate::table::{Kind, TemperatureScale};
-use crate::unit::Unit;
+use crate::unit::{Unit, UnitError};
 
 /// A value with a dimension. The value is held in SI base units: metres, kilograms, seconds,
 /// kelvin (an absolute temperature is kelvin above absolute zero, a difference is kelvin of
@@ -107,6 +107,72 @@ impl fmt::Display for QuantityError {
 
 impl std::error::Error for QuantityError {}
 
+/// Why [`Quantity::parse`] could not read a quantity. Spans are byte ranges in the whole text.
+#[derive(Clone, Debug, PartialEq)]
+pub enum ParseQuantityError {
+    /// The text does not start with a number.
+    Number {
+        /// Where a number was expected.
+        span: Range<usize>,
+    },
+    /// A number without a unit (for the `missing-unit` diagnostic).
+    MissingUnit {
+        /// The number that was read.
+        value: f64,
+    },
+    /// The unit could not be read.
+    Unit(UnitError),
+    /// The number does not fit in the unit (`1e306 MBH`).
+    Value(QuantityError),
+}
+
+impl fmt::Display for ParseQuantityError {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
+            ParseQuantityError::Number { .. } => f.write_str("expected a number"),
+            ParseQuantityError::MissingUnit { value } => write!(f, "`{value}` has no unit"),
+            ParseQuantityError::Unit(e) => e.fmt(f),
+            ParseQuantityError::Value(e) => e.fmt(f),
+        }
+    }
+}
+
+impl std::error::Error for ParseQuantityError {}
+
+/// The length of the number at the start of `text`: `[+-]digits[_digits][.digits][e[+-]digits]`.
+fn number_len(text: &str) -> usize {
+    let b = text.as_bytes();
+    let mut i = 0;
+    if matches!(b.first(), Some(b'+' | b'-')) {
+        i += 1;
+    }
+    let digits = |i: &mut usize| {
+        let start = *i;
+        while *i < b.len() && (b[*i].is_ascii_digit() || (b[*i] == b'_' && *i > start)) {
+            *i += 1;
+        }
+        *i > start
+    };
+    let mut any = digits(&mut i);
+    if i < b.len() && b[i] == b'.' {
+        i += 1;
+        any |= digits(&mut i);
+    }
+    if !any {
+        return 0;
+    }
+    if i < b.len() && matches!(b[i], b'e' | b'E') {
+        let mut j = i + 1;
+        if j < b.len() && matches!(b[j], b'+' | b'-') {
+            j += 1;
+        }
+        if j < b.len() && b[j].is_ascii_digit() && digits(&mut j) {
+            i = j;
+        }
+    }
+    i
+}
+
 fn finite(value: f64) -> Result<f64, QuantityError> {
     if value.is_finite() {
         Ok(value)
@@ -146,6 +212,41 @@ impl Quantity {
                 origin: Origin::Computed,
             }),
         }
+    }
+
+    /// Reads a number and its unit, with or without a space between: `1250ft`, `381 m`,
+    /// `12.2 psia`, `1_250 ft`, `-4 °F`, `1.2e3 cfm` (for command-line options such as
+    /// `--elevation`; the design file's own parser hands over number and unit separately).
+    ///
+    /// ```
+    /// use plenum_units::{Dimension, ParseQuantityError, Quantity};
+    /// let z = Quantity::parse("1250ft")?;
+    /// assert_eq!(z.dimension(), Dimension::LENGTH);
+    /// assert!((z.value() - 381.0).abs() < 1e-9);
+    /// assert_eq!(Quantity::parse("1250"), Err(ParseQuantityError::MissingUnit { value: 1250.0 }));
+    /// # Ok::<(), ParseQuantityError>(())
+    /// ```
+    pub fn parse(text: &str) -> Result<Quantity, ParseQuantityError> {
+        let start = text.len() - text.trim_start().len();
+        let len = number_len(&text[start..]);
+        let end = start + len;
+        let number: String = text[start..end].chars().filter(|&c| c != '_').collect();
+        let value: f64 = match number.parse() {
+            Ok(v) if len > 0 => v,
+            _ => {
+                return Err(ParseQuantityError::Number {
+                    span: start
+                        ..end.max(start + text[start..].chars().next().map_or(0, char::len_utf8)),
+                });
+            }
+        };
+        let rest = &text[end..];
+        let unit = match Unit::parse(rest) {
+            Ok(u) => u,
+            Err(UnitError::Empty) => return Err(ParseQuantityError::MissingUnit { value }),
+            Err(e) => return Err(ParseQuantityError::Unit(e.after(&text[..end]))),
+        };
+        Quantity::new(value, &unit).map_err(ParseQuantityError::Value)
     }
 
     /// A quantity from a value already in SI base units (kelvin for an absolute temperature).

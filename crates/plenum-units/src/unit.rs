@@ -78,6 +78,35 @@ impl UnitError {
             | UnitError::OutOfRange { span } => Some(span.clone()),
         }
     }
+
+    /// The same error for a unit text that stood after `prefix` in a longer text: spans move
+    /// by `prefix.len()` and corrected texts gain the prefix.
+    pub(crate) fn after(self, prefix: &str) -> UnitError {
+        let shift = |r: Range<usize>| r.start + prefix.len()..r.end + prefix.len();
+        match self {
+            UnitError::Empty => UnitError::Empty,
+            UnitError::UnknownSymbol {
+                symbol,
+                span,
+                nearest,
+                corrected,
+            } => UnitError::UnknownSymbol {
+                symbol,
+                span: shift(span),
+                nearest,
+                corrected: corrected.map(|c| format!("{prefix}{c}")),
+            },
+            UnitError::Malformed { span, reason } => UnitError::Malformed {
+                span: shift(span),
+                reason,
+            },
+            UnitError::Ambiguous { span, suggestion } => UnitError::Ambiguous {
+                span: shift(span),
+                suggestion: format!("{prefix}{suggestion}"),
+            },
+            UnitError::OutOfRange { span } => UnitError::OutOfRange { span: shift(span) },
+        }
+    }
 }
 
 impl fmt::Display for UnitError {

@@ -292,9 +292,18 @@ proptest! {
 
     /// The unit parser never panics, and what it accepts has a finite positive factor.
     #[test]
-    fn parser_is_total(text in "\\PC{0,24}") {
+    fn parser_is_total(text in "\\PC{0,24}", number in "[-+]?[0-9_]{0,5}[.]?[0-9]{0,3}([eE][-+]?[0-9]{0,3})? ?") {
         if let Ok(u) = Unit::parse(&text) {
             prop_assert!(u.factor().is_finite() && u.factor() > 0.0);
+        }
+        let whole = format!("{number}{text}");
+        match Quantity::parse(&whole) {
+            Ok(x) => prop_assert!(x.value().is_finite()),
+            Err(plenum_units::ParseQuantityError::Unit(e)) => {
+                let span = e.span().unwrap_or(0..0);
+                prop_assert!(span.end <= whole.len() && whole.is_char_boundary(span.start) && whole.is_char_boundary(span.end));
+            }
+            Err(_) => {}
         }
     }
 

@@ -338,3 +338,62 @@ fn suggestions_fix_the_common_mistakes() {
         }
     }
 }
+
+#[test]
+fn quantities_from_command_line_text() {
+    use plenum_units::{ParseQuantityError, Quantity};
+    let cases: &[(&str, f64, &str)] = &[
+        ("1250ft", 1250.0, "ft"),
+        ("1250 ft", 1250.0, "ft"),
+        ("381 m", 381.0, "m"),
+        ("  12.2 psia ", 12.2, "psia"),
+        ("1_250 ft", 1250.0, "ft"),
+        ("-4 °F", -4.0, "°F"),
+        ("1.2e3 cfm", 1200.0, "cfm"),
+        ("1.2E-3 kg/kg", 0.0012, "kg/kg"),
+        (".5 in.wg", 0.5, "in.wg"),
+        ("50 %rh", 50.0, "%rh"),
+        ("+3K", 3.0, "K"),
+    ];
+    for &(text, value, unit) in cases {
+        let q = Quantity::parse(text).unwrap_or_else(|e| panic!("`{text}`: {e}"));
+        let expected = Quantity::new(value, &parse(unit)).expect("literal");
+        assert_eq!(q, expected, "`{text}`");
+    }
+    assert!(
+        Quantity::parse("50 %rh")
+            .expect("rh")
+            .is_relative_humidity()
+    );
+    assert_eq!(
+        Quantity::parse("0.95"),
+        Err(ParseQuantityError::MissingUnit { value: 0.95 })
+    );
+    for text in ["", "ft", "_1 ft", "-", ". ft", "e3 ft"] {
+        assert!(
+            matches!(
+                Quantity::parse(text),
+                Err(ParseQuantityError::Number { .. })
+            ),
+            "`{text}`: {:?}",
+            Quantity::parse(text)
+        );
+    }
+    match Quantity::parse("1250 fet") {
+        Err(ParseQuantityError::Unit(UnitError::UnknownSymbol {
+            span, corrected, ..
+        })) => {
+            assert_eq!(span, 5..8);
+            assert_eq!(corrected.as_deref(), Some("1250 ft"));
+        }
+        other => panic!("{other:?}"),
+    }
+    assert!(matches!(
+        Quantity::parse("1e400 ft"),
+        Err(ParseQuantityError::Value(_))
+    ));
+    assert_eq!(
+        Quantity::parse("1250 fet").map_err(|e| e.to_string()),
+        Err("unknown unit `fet`; did you mean `ft`?".to_string())
+    );
+}

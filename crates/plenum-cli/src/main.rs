@@ -1,0 +1,71 @@
+//! `plenum`: the command-line front end.
+//!
+//! Exit codes: 0 when no errors were found, 1 when errors were found, 2 for a
+//! usage error, unreadable input or an internal error.
+
+mod check;
+mod diag;
+mod files;
+mod render;
+
+use std::path::PathBuf;
+use std::process::ExitCode;
+
+use clap::{Parser, Subcommand, ValueEnum};
+
+#[derive(Parser, Debug)]
+#[command(
+    name = "plenum",
+    version,
+    about = "Check HVAC air-side design files: from zone loads to cooling-coil capacity",
+    propagate_version = true
+)]
+struct Cli {
+    #[command(subcommand)]
+    command: Command,
+}
+
+#[derive(Subcommand, Debug)]
+enum Command {
+    /// Check design files and report every problem found.
+    Check(CheckArgs),
+}
+
+#[derive(clap::Args, Debug)]
+struct CheckArgs {
+    /// Files or folders to check (folders are searched for `*.plenum`,
+    /// respecting `.gitignore`). Default: the current folder.
+    paths: Vec<PathBuf>,
+    /// Output format.
+    #[arg(long, value_enum, default_value_t = Format::Text)]
+    format: Format,
+}
+
+#[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
+enum Format {
+    /// Human-readable diagnostics with source snippets.
+    Text,
+    /// Machine-readable JSON.
+    Json,
+}
+
+fn main() -> ExitCode {
+    let cli = match Cli::try_parse() {
+        Ok(cli) => cli,
+        Err(e) => {
+            let code = if e.use_stderr() { 2 } else { 0 };
+            let _ = e.print();
+            return ExitCode::from(code);
+        }
+    };
+    let result = match cli.command {
+        Command::Check(args) => check::run(&args.paths, args.format),
+    };
+    match result {
+        Ok(code) => code,
+        Err(message) => {
+            eprintln!("error: {message}");
+            ExitCode::from(2)
+        }
+    }
+}

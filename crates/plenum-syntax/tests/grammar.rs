@@ -2,6 +2,8 @@
 //! code block in `grammar/README.md` and every design under `examples/` must
 //! parse without a syntax error.
 
+#![allow(clippy::unwrap_used)] // test helpers: a failure is the test failing
+
 use std::path::{Path, PathBuf};
 
 fn root() -> PathBuf {

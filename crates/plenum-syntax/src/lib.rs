@@ -149,4 +149,3 @@ fn report_unclosed(text: &str, file: &SourceFile, errors: &mut Vec<SyntaxError>)
     });
     errors.push(err);
 }
-

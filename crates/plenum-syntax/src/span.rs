@@ -193,11 +193,8 @@ impl LineIndex {
                 }
             }
         }
-        let mut last = text.len() - line_start;
-        if last > 0 && bytes.get(text.len() - 1) == Some(&b'\r') {
-            last -= 1;
-        }
-        line_lens.push(clamp_u32(last));
+        // The last line has no line break (a lone `\r` at the very end is content).
+        line_lens.push(clamp_u32(text.len() - line_start));
         LineIndex {
             line_starts,
             line_lens,

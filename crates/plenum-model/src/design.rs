@@ -166,8 +166,12 @@ pub enum SupplyDuct {
 
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub enum ReturnDuct {
-    Length { ft: f64 },
-    Rise { dt_f: f64 },
+    Length {
+        ft: f64,
+    },
+    Rise {
+        dt_f: f64,
+    },
     /// `return_duct none`: no return duct, no rise.
     None,
 }

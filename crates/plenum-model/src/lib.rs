@@ -1,6 +1,96 @@
-//! The Plenum design model: files and `use`, name resolution, units, and the
-//! typed [`Design`] the coil engine computes from.
+//! The Plenum design model: files and `use`, name resolution (`serves`,
+//! `like`, `let`), unit checking of every key against the one key table
+//! ([`keys`]), and lowering into the typed [`Design`] the coil engine
+//! computes from. Every value keeps the place in the source it came from.
+//!
+//! The model does no IO of its own: files are read through a [`FileSystem`],
+//! so tests run on in-memory files and the language server on its buffers.
+//!
+//! ```
+//! let text = "site { cooling 94 °F db, 75 °F wb }\n\
+//!             zone office { area 1_000 ft²; sensible 12 kBtu/h }\n\
+//!             ahu a { serves office }\n";
+//! let (design, diagnostics) = plenum_model::lower_text(text);
+//! assert!(diagnostics.is_empty());
+//! assert_eq!(design.zones[0].sensible_btuh.map(|s| s.value), Some(12_000.0));
+//! ```
 
 pub mod design;
+mod diag;
+mod eval;
+pub mod fs;
+pub mod keys;
+mod load;
+mod lower;
+pub mod symbols;
+
+use std::path::{Path, PathBuf};
 
 pub use design::*;
+pub use diag::{Edit, Fix, ModelCode, ModelDiagnostic, Severity};
+pub use fs::{FileSystem, MemoryFs, RealFs};
+pub use load::SourceFile;
+pub use lower::PropertyInfo;
+pub use symbols::{SymbolDef, SymbolKind, SymbolRef, Symbols};
+
+/// A design loaded from its root file and the files it uses.
+#[derive(Clone, Debug)]
+pub struct Model {
+    pub root: FileId,
+    /// The root file first, then the files it uses in the order they were read.
+    pub files: Vec<SourceFile>,
+    pub design: Design,
+    /// The model's findings (syntax errors stay in each file's `parse`).
+    pub diagnostics: Vec<ModelDiagnostic>,
+    pub symbols: Symbols,
+    /// Every property that was read, with its evaluated quantity, for hover.
+    pub properties: Vec<PropertyInfo>,
+    /// The folder `use` paths are confined to.
+    pub project_root: PathBuf,
+}
+
+impl Model {
+    /// Load the design whose root file is `path` with text `text` (already
+    /// read by the caller); `use`d files are read through `fs`.
+    pub fn build(fs: &dyn FileSystem, path: &Path, text: String) -> Model {
+        let project_root = fs::project_root(fs, path);
+        let mut loader = load::Loader::new(fs, &project_root);
+        let root = loader.add_root(path, text);
+        let files = loader.files;
+        let texts: Vec<&str> = files.iter().map(|f| f.text.as_str()).collect();
+        let lowered = lower::Lowering::run(&files, &texts);
+        let mut diagnostics = loader.diags;
+        diagnostics.extend(lowered.diags);
+        diagnostics.sort_by_key(|d| d.loc);
+        Model {
+            root,
+            design: lowered.design,
+            diagnostics,
+            symbols: lowered.symbols,
+            properties: lowered.properties,
+            files,
+            project_root,
+        }
+    }
+
+    pub fn file(&self, id: FileId) -> Option<&SourceFile> {
+        self.files.get(id.0 as usize)
+    }
+
+    /// True when any file has a syntax error or the model an error.
+    pub fn has_errors(&self) -> bool {
+        self.files.iter().any(|f| f.parse.has_errors())
+            || self
+                .diagnostics
+                .iter()
+                .any(|d| d.severity == Severity::Error)
+    }
+}
+
+/// Lower one file's text on its own (a `use` in it finds nothing). Syntax
+/// errors are not included; see [`Model::build`] for the whole picture.
+pub fn lower_text(text: &str) -> (Design, Vec<ModelDiagnostic>) {
+    let fs = MemoryFs::new();
+    let model = Model::build(&fs, Path::new("design.plenum"), text.to_string());
+    (model.design, model.diagnostics)
+}

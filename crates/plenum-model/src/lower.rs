@@ -897,7 +897,7 @@ impl<'a> Lowering<'a> {
         let q = self
             .ev
             .require(file, key, e.span(), v, Dimension::RATIO, Some(e))?;
-        let f = q.value();
+        let f = round_significant(q.value(), 12);
         if f <= 0.0 || f > max {
             let mut d = ModelDiagnostic::new(
                 ModelCode::OutOfRange,
@@ -933,7 +933,8 @@ impl<'a> Lowering<'a> {
         }
         let e = &p.prop.value.elements.first.expr;
         let v = self.ev.expr(p.file, e)?;
-        let n = if v.q.dimension() == Dimension::RATIO && v.unitless {
+        // A plain number (written, or through a `let`) is a count.
+        let n = if v.q.dimension() == Dimension::RATIO {
             v.q.value()
         } else {
             self.ev
@@ -1150,7 +1151,7 @@ impl<'a> Lowering<'a> {
                     ok = false;
                     continue;
                 }
-                Part::Humidity(Humidity::Rh(v.q.value()))
+                Part::Humidity(Humidity::Rh(round_significant(v.q.value(), 12)))
             } else if dim == Dimension::HUMIDITY_RATIO {
                 if qual.is_some() {
                     self.qualifier_not_allowed(file, el);
@@ -1329,7 +1330,7 @@ impl<'a> Lowering<'a> {
                 cfm: ip(&v.q, "cfm")?,
             }
         } else if dim == Dimension::RATIO && !v.unitless {
-            let f = v.q.value();
+            let f = round_significant(v.q.value(), 12);
             if !(f > 0.0 && f <= 1.0 + 1e-12) {
                 self.ev.report(ModelDiagnostic::new(
                     ModelCode::OutOfRange,
@@ -1629,10 +1630,28 @@ enum Range {
 }
 
 /// The number of IP `unit`s in `q` (`Δ°F` reads a difference in °F).
+///
+/// Quantities are held in SI, so `94 °F` comes back as 94.00000000000006 after
+/// its trip through kelvin. The result is rounded to 12 significant digits,
+/// far below any physical meaning, so that a value reads back as written.
 fn ip(q: &Quantity, unit: &str) -> Option<f64> {
     let text = if unit == "Δ°F" { "°F" } else { unit };
     let u = Unit::parse(text).ok()?;
-    q.in_unit(&u).ok().filter(|v| v.is_finite())
+    let v = q.in_unit(&u).ok().filter(|v| v.is_finite())?;
+    Some(round_significant(v, 12))
+}
+
+fn round_significant(v: f64, digits: i32) -> f64 {
+    if v == 0.0 || !v.is_finite() {
+        return v;
+    }
+    let magnitude = v.abs().log10().floor() as i32;
+    let scale = 10f64.powi(digits - 1 - magnitude);
+    if !scale.is_finite() || scale == 0.0 {
+        return v;
+    }
+    let r = (v * scale).round() / scale;
+    if r.is_finite() { r } else { v }
 }
 
 /// A number without needless digits (`18`, `2.5`, `0.0098`).

@@ -6,6 +6,7 @@ use plenum_syntax::{Span, SyntaxError};
 pub enum Severity {
     Error,
     Warning,
+    Info,
 }
 
 impl Severity {
@@ -13,6 +14,7 @@ impl Severity {
         match self {
             Severity::Error => "error",
             Severity::Warning => "warning",
+            Severity::Info => "info",
         }
     }
 }

@@ -51,6 +51,7 @@ pub fn text(report: &FileReport) -> String {
             .with_severity(match d.severity {
                 Severity::Error => miette::Severity::Error,
                 Severity::Warning => miette::Severity::Warning,
+                Severity::Info => miette::Severity::Advice,
             })
             .with_labels(labels);
         if let Some(help) = &d.help {

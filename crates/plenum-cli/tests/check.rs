@@ -158,7 +158,7 @@ fn folders_are_searched_honouring_gitignore() {
         .iter()
         .map(|d| d["file"].as_str().unwrap().replace('\\', "/"))
         .collect();
-    assert_eq!(files, vec!["./sub/bad.plenum".to_string()]);
+    assert_eq!(files, vec!["sub/bad.plenum".to_string()]);
     // Without errors in scope, the exit status is 0.
     let out = plenum(&["check", "good.plenum"], dir.path());
     assert_eq!(out.status.code(), Some(0));
@@ -179,4 +179,50 @@ fn text_output_shows_the_snippet_and_a_summary() {
     assert!(stdout.contains("sensible = 3 kBtu/h"), "{stdout}");
     assert!(stdout.contains("without `=`"), "{stdout}");
     assert!(stderr.contains("1 error, 0 warnings in 1 file"), "{stderr}");
+}
+
+#[test]
+fn a_value_in_the_wrong_unit_is_a_unit_mismatch_at_its_line() {
+    let dir = tempfile::tempdir().unwrap();
+    write(
+        dir.path(),
+        "units.plenum",
+        "site { cooling 94 °F db, 75 °F wb }\nzone office {\n  area 1_000 ft²\n  sensible 4_200 cfm\n}\nahu a { serves office }\n"
+            .as_bytes(),
+    );
+    let out = plenum(&["check", "units.plenum", "--format", "json"], dir.path());
+    assert_eq!(out.status.code(), Some(1));
+    let diags = diagnostics(&out);
+    assert_eq!(diags.len(), 1, "{diags:#?}");
+    assert_eq!(diags[0]["code"], "unit-mismatch");
+    assert_eq!(diags[0]["line"], 4);
+    assert!(diags[0]["message"].as_str().unwrap().contains("`sensible`"));
+}
+
+#[test]
+fn a_shared_file_is_checked_through_the_design_that_uses_it() {
+    let dir = tempfile::tempdir().unwrap();
+    write(dir.path(), "plenum.toml", b"");
+    write(
+        dir.path(),
+        "shared/site.plenum",
+        "site { cooling 94 °F db, 75 °F wb }\nlet lights = 2 kW + 3 ft²\n".as_bytes(),
+    );
+    write(
+        dir.path(),
+        "a.plenum",
+        b"use \"shared/site.plenum\"\nzone z { sensible 1 kW }\nahu u { serves z }\n",
+    );
+    write(
+        dir.path(),
+        "b.plenum",
+        b"use \"shared/site.plenum\"\nzone y { sensible 1 kW }\nahu v { serves y }\n",
+    );
+    let out = plenum(&["check", "--format", "json"], dir.path());
+    assert_eq!(out.status.code(), Some(1));
+    let diags = diagnostics(&out);
+    // Reported once, in the shared file, although two designs use it.
+    assert_eq!(diags.len(), 1, "{diags:#?}");
+    assert_eq!(diags[0]["file"], "shared/site.plenum");
+    assert_eq!(diags[0]["code"], "unit-mismatch");
 }

@@ -88,6 +88,21 @@ impl ModelCode {
         }
     }
 
+    /// Findings about the design as a whole (what is missing or unresolved),
+    /// which a syntax error elsewhere can cause by hiding a block or a key.
+    /// They are held back while any file of the design has a syntax error, so
+    /// that one mistake does not cascade into many findings.
+    pub fn is_global(self) -> bool {
+        matches!(
+            self,
+            ModelCode::UnknownName
+                | ModelCode::MissingKey
+                | ModelCode::MissingSite
+                | ModelCode::UnservedZone
+                | ModelCode::ZoneServedTwice
+        )
+    }
+
     pub fn default_severity(self) -> Severity {
         match self {
             ModelCode::UnservedZone => Severity::Warning,

@@ -61,6 +61,9 @@ impl Model {
         let lowered = lower::Lowering::run(&files, &texts);
         let mut diagnostics = loader.diags;
         diagnostics.extend(lowered.diags);
+        if files.iter().any(|f| f.parse.has_errors()) {
+            diagnostics.retain(|d| !d.code.is_global());
+        }
         diagnostics.sort_by_key(|d| d.loc);
         Model {
             root,

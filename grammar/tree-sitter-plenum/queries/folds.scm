@@ -1,0 +1,2 @@
+; A block folds from its header to its closing brace.
+(block) @fold

@@ -3,6 +3,7 @@
 //! Exit codes: 0 when no errors were found, 1 when errors were found, 2 for a
 //! usage error, unreadable input or an internal error.
 
+mod air;
 mod check;
 mod diag;
 mod files;
@@ -29,6 +30,8 @@ struct Cli {
 enum Command {
     /// Check design files and report every problem found.
     Check(CheckArgs),
+    /// Show the properties of one moist-air state.
+    Air(air::AirArgs),
 }
 
 #[derive(clap::Args, Debug)]
@@ -39,6 +42,24 @@ struct CheckArgs {
     /// Output format.
     #[arg(long, value_enum, default_value_t = Format::Text)]
     format: Format,
+}
+
+/// The unit system of printed values.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
+pub enum Units {
+    /// Inch-pound: °F, Btu/h, cfm, psia.
+    Ip,
+    /// SI: °C, W, L/s, kPa.
+    Si,
+}
+
+impl Units {
+    pub fn system(self) -> plenum_units::UnitSystem {
+        match self {
+            Units::Ip => plenum_units::UnitSystem::Ip,
+            Units::Si => plenum_units::UnitSystem::Si,
+        }
+    }
 }
 
 #[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
@@ -60,6 +81,7 @@ fn main() -> ExitCode {
     };
     let result = match cli.command {
         Command::Check(args) => check::run(&args.paths, args.format),
+        Command::Air(args) => air::run(&args),
     };
     match result {
         Ok(code) => code,

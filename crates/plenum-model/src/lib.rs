@@ -97,3 +97,74 @@ pub fn lower_text(text: &str) -> (Design, Vec<ModelDiagnostic>) {
     let model = Model::build(&fs, Path::new("design.plenum"), text.to_string());
     (model.design, model.diagnostics)
 }
+
+/// An error in a standalone air state: where (a byte span of the state's
+/// text) and what.
+#[derive(Clone, Debug, PartialEq)]
+pub struct StateError {
+    pub code: &'static str,
+    pub span: plenum_syntax::Span,
+    pub message: String,
+    pub help: Option<String>,
+}
+
+/// Read an air state given on its own (`94 °F db, 75 °F wb`, `24 °C,
+/// 0.0093 kg/kg`), by exactly the rules of a design file's `cooling` key.
+pub fn parse_air_state(text: &str) -> Result<AirSpec, Vec<StateError>> {
+    const PREFIX: &str = "site {\ncooling ";
+    if text.contains(['\n', '{', '}', ';']) {
+        return Err(vec![StateError {
+            code: "invalid-value",
+            span: plenum_syntax::Span::new(0, u32::try_from(text.len()).unwrap_or(u32::MAX)),
+            message: "an air state is one line of values, such as `94 °F db, 75 °F wb`".to_string(),
+            help: None,
+        }]);
+    }
+    let src = format!("{PREFIX}{text}\n}}\n");
+    let fs = MemoryFs::new();
+    let model = Model::build(&fs, Path::new("state.plenum"), src);
+    let shift = |s: plenum_syntax::Span| {
+        let len = u32::try_from(text.len()).unwrap_or(u32::MAX);
+        let p = PREFIX.len() as u32;
+        plenum_syntax::Span::new(
+            s.start.saturating_sub(p).min(len),
+            s.end.saturating_sub(p).min(len),
+        )
+    };
+    let mut errors: Vec<StateError> = model.files[0]
+        .parse
+        .errors
+        .iter()
+        .map(|e| StateError {
+            code: e.kind.code(),
+            span: shift(e.span),
+            message: e.message.clone(),
+            help: e.help.clone(),
+        })
+        .collect();
+    errors.extend(model.diagnostics.iter().map(|d| {
+        StateError {
+            code: d.code.code(),
+            span: shift(d.loc.span),
+            message: d
+                .message
+                .replace("`cooling` ", "the state ")
+                .replace("`cooling`", "the state"),
+            help: d.help.clone(),
+        }
+    }));
+    match model.design.site.and_then(|s| s.cooling) {
+        Some(state) if errors.is_empty() => Ok(state.value),
+        _ => {
+            if errors.is_empty() {
+                errors.push(StateError {
+                    code: "invalid-value",
+                    span: plenum_syntax::Span::new(0, 0),
+                    message: "not an air state".to_string(),
+                    help: None,
+                });
+            }
+            Err(errors)
+        }
+    }
+}

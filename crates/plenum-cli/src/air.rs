@@ -1,0 +1,339 @@
+//! `plenum air`: the properties of one moist-air state.
+
+use std::process::ExitCode;
+
+use plenum_model::AirSpec;
+use plenum_psychro::{PsychroError, ip, si};
+use plenum_syntax::Span;
+use plenum_units::{Dimension, Measure, Quantity, Unit, UnitSystem};
+use serde::Serialize;
+
+use crate::diag::{Diag, Severity};
+use crate::render::{self, FileReport};
+
+#[derive(clap::Args, Debug)]
+pub struct AirArgs {
+    /// The air state, as in a design file: `94 °F db, 75 °F wb`, `75 °F, 50 %rh`,
+    /// `55 °F dp, 80 °F db`, `24 °C, 0.0093 kg/kg`.
+    pub state: String,
+    /// Site elevation, with its unit (`1250ft`, `"381 m"`); default sea level.
+    #[arg(long, allow_hyphen_values = true, conflicts_with = "pressure")]
+    pub elevation: Option<String>,
+    /// Barometric pressure, with its unit (`"12.2 psia"`, `"84.1 kPa"`).
+    #[arg(long)]
+    pub pressure: Option<String>,
+    /// Units of the output.
+    #[arg(long, value_enum, default_value_t = crate::Units::Ip)]
+    pub units: crate::Units,
+    /// Output format.
+    #[arg(long, value_enum, default_value_t = AirFormat::Text)]
+    pub format: AirFormat,
+}
+
+#[derive(Clone, Copy, Debug, PartialEq, Eq, clap::ValueEnum)]
+pub enum AirFormat {
+    Text,
+    Json,
+}
+
+/// The JSON keys other tools rely on (IP).
+#[derive(Serialize)]
+struct IpJson {
+    tdb_f: f64,
+    twb_f: f64,
+    tdp_f: f64,
+    rh_pct: f64,
+    w_lb_lb: f64,
+    w_gr_lb: f64,
+    h_btu_lb: f64,
+    v_ft3_lb: f64,
+    rho_lb_ft3: f64,
+    pressure_psia: f64,
+}
+
+/// The JSON keys other tools rely on (SI).
+#[derive(Serialize)]
+struct SiJson {
+    tdb_c: f64,
+    twb_c: f64,
+    tdp_c: f64,
+    rh_pct: f64,
+    w_kg_kg: f64,
+    w_g_kg: f64,
+    h_kj_kg: f64,
+    v_m3_kg: f64,
+    rho_kg_m3: f64,
+    pressure_kpa: f64,
+}
+
+/// Parse `--elevation` or `--pressure`: one quantity of `dim`; the value in `unit`.
+fn option_quantity(flag: &str, text: &str, dim: Dimension, unit: &str) -> Result<f64, String> {
+    let q = Quantity::parse(text.trim()).map_err(|e| {
+        format!(
+            "--{flag} `{text}`: {e} (write it with its unit, e.g. `--{flag} \"{}\"`)",
+            example(flag)
+        )
+    })?;
+    let q = q
+        .require(dim)
+        .map_err(|e| format!("--{flag} `{text}`: {e}"))?;
+    let u = Unit::parse(unit).map_err(|e| e.to_string())?;
+    q.in_unit(&u).map_err(|e| format!("--{flag} `{text}`: {e}"))
+}
+
+fn example(flag: &str) -> &'static str {
+    if flag == "elevation" {
+        "1250 ft"
+    } else {
+        "12.2 psia"
+    }
+}
+
+pub fn run(args: &AirArgs) -> Result<ExitCode, String> {
+    let system = args.units.system();
+    let spec = match plenum_model::parse_air_state(&args.state) {
+        Ok(s) => s,
+        Err(errors) => {
+            let report = FileReport {
+                name: "STATE".to_string(),
+                text: args.state.clone(),
+                diags: errors
+                    .into_iter()
+                    .map(|e| Diag {
+                        code: e.code,
+                        severity: Severity::Error,
+                        message: e.message,
+                        span: e.span,
+                        label: None,
+                        related: Vec::new(),
+                        help: e.help,
+                    })
+                    .collect(),
+            };
+            eprint!("{}", render::text(&report));
+            return Ok(ExitCode::from(1));
+        }
+    };
+    // The pressure by the standard-atmosphere form of the output's unit system,
+    // so that sea level is exactly 14.696 psia or 101.325 kPa.
+    let pressure_psia = match (&args.elevation, &args.pressure, system) {
+        (Some(e), _, UnitSystem::Ip) => {
+            let ft = option_quantity("elevation", e, Dimension::LENGTH, "ft")?;
+            ip::standard_pressure(ft).map_err(|err| format!("--elevation `{e}`: {err}"))?
+        }
+        (Some(e), _, UnitSystem::Si) => {
+            let m = option_quantity("elevation", e, Dimension::LENGTH, "m")?;
+            si::standard_pressure(m).map_err(|err| format!("--elevation `{e}`: {err}"))?
+                / plenum_psychro::PA_PER_PSI
+        }
+        (None, Some(p), _) => {
+            let psia = option_quantity("pressure", p, Dimension::PRESSURE, "psia")?;
+            if psia <= 0.0 {
+                return Err(format!("--pressure `{p}` must be above zero"));
+            }
+            psia
+        }
+        (None, None, UnitSystem::Ip) => ip::STANDARD_PRESSURE,
+        (None, None, UnitSystem::Si) => si::STANDARD_PRESSURE / plenum_psychro::PA_PER_PSI,
+    };
+    let out = match system {
+        UnitSystem::Ip => ip_state(spec, pressure_psia).map(|s| Output::Ip(Box::new(s))),
+        UnitSystem::Si => si_state(spec, pressure_psia).map(|s| Output::Si(Box::new(s))),
+    };
+    let out = match out {
+        Ok(o) => o,
+        Err(e) => {
+            let report = FileReport {
+                name: "STATE".to_string(),
+                text: args.state.clone(),
+                diags: vec![Diag {
+                    code: "out-of-range",
+                    severity: Severity::Error,
+                    message: format!("this air state has no psychrometric solution: {e}"),
+                    span: Span::new(0, u32::try_from(args.state.len()).unwrap_or(u32::MAX)),
+                    label: None,
+                    related: Vec::new(),
+                    help: None,
+                }],
+            };
+            eprint!("{}", render::text(&report));
+            return Ok(ExitCode::from(1));
+        }
+    };
+    match args.format {
+        AirFormat::Json => println!("{}", out.json()),
+        AirFormat::Text => print!("{}", out.text(args, pressure_psia)),
+    }
+    Ok(ExitCode::SUCCESS)
+}
+
+enum Output {
+    Ip(Box<ip::State>),
+    Si(Box<si::State>),
+}
+
+fn ip_state(spec: AirSpec, p: f64) -> Result<ip::State, PsychroError> {
+    match spec {
+        AirSpec::DbWb { db_f, wb_f } => ip::State::from_db_wb(db_f, wb_f, p),
+        AirSpec::DbRh { db_f, rh } => ip::State::from_db_rh(db_f, rh, p),
+        AirSpec::DbDp { db_f, dp_f } => ip::State::from_db_dp(db_f, dp_f, p),
+        AirSpec::DbW { db_f, w } => ip::State::from_db_w(db_f, w, p),
+    }
+}
+
+fn c(f: f64) -> f64 {
+    (f - 32.0) / 1.8
+}
+
+/// The state computed with the SI forms of the equations, so that what was
+/// given in SI reads back as given.
+fn si_state(spec: AirSpec, p_psia: f64) -> Result<si::State, PsychroError> {
+    let p = p_psia * plenum_psychro::PA_PER_PSI;
+    match spec {
+        AirSpec::DbWb { db_f, wb_f } => si::State::from_db_wb(c(db_f), c(wb_f), p),
+        AirSpec::DbRh { db_f, rh } => si::State::from_db_rh(c(db_f), rh, p),
+        AirSpec::DbDp { db_f, dp_f } => si::State::from_db_dp(c(db_f), c(dp_f), p),
+        AirSpec::DbW { db_f, w } => si::State::from_db_w(c(db_f), w, p),
+    }
+}
+
+impl Output {
+    fn json(&self) -> String {
+        let text = match self {
+            Output::Ip(s) => serde_json::to_string_pretty(&IpJson {
+                tdb_f: s.dry_bulb(),
+                twb_f: s.wet_bulb(),
+                tdp_f: s.dew_point(),
+                rh_pct: s.rh_percent(),
+                w_lb_lb: s.hum_ratio(),
+                w_gr_lb: s.hum_ratio() * ip::GRAINS_PER_POUND,
+                h_btu_lb: s.enthalpy(),
+                v_ft3_lb: s.specific_volume(),
+                rho_lb_ft3: s.density(),
+                pressure_psia: s.pressure(),
+            }),
+            Output::Si(s) => serde_json::to_string_pretty(&SiJson {
+                tdb_c: s.dry_bulb(),
+                twb_c: s.wet_bulb(),
+                tdp_c: s.dew_point(),
+                rh_pct: s.rh_percent(),
+                w_kg_kg: s.hum_ratio(),
+                w_g_kg: s.hum_ratio() * 1000.0,
+                h_kj_kg: s.enthalpy(),
+                v_m3_kg: s.specific_volume(),
+                rho_kg_m3: s.density(),
+                pressure_kpa: s.pressure() / 1000.0,
+            }),
+        };
+        text.unwrap_or_else(|_| "{}".to_string())
+    }
+
+    fn text(&self, args: &AirArgs, p_psia: f64) -> String {
+        let (sys, rows): (UnitSystem, Vec<(&str, String)>) = match self {
+            Output::Ip(s) => {
+                let u = UnitSystem::Ip;
+                (
+                    u,
+                    vec![
+                        (
+                            "dry bulb",
+                            Measure::Temperature.format_number_with_unit(s.dry_bulb(), u),
+                        ),
+                        (
+                            "wet bulb",
+                            Measure::Temperature.format_number_with_unit(s.wet_bulb(), u),
+                        ),
+                        (
+                            "dew point",
+                            Measure::Temperature.format_number_with_unit(s.dew_point(), u),
+                        ),
+                        ("relative humidity", format!("{:.0} %", s.rh_percent())),
+                        (
+                            "humidity ratio",
+                            format!(
+                                "{}  ({})",
+                                Measure::HumidityRatio.format_number_with_unit(s.hum_ratio(), u),
+                                Measure::HumidityRatioGrains.format_number_with_unit(
+                                    s.hum_ratio() * ip::GRAINS_PER_POUND,
+                                    u
+                                )
+                            ),
+                        ),
+                        (
+                            "enthalpy",
+                            Measure::Enthalpy.format_number_with_unit(s.enthalpy(), u),
+                        ),
+                        (
+                            "specific volume",
+                            Measure::SpecificVolume.format_number_with_unit(s.specific_volume(), u),
+                        ),
+                        (
+                            "density",
+                            Measure::Density.format_number_with_unit(s.density(), u),
+                        ),
+                    ],
+                )
+            }
+            Output::Si(s) => {
+                let u = UnitSystem::Si;
+                (
+                    u,
+                    vec![
+                        (
+                            "dry bulb",
+                            Measure::Temperature.format_number_with_unit(s.dry_bulb(), u),
+                        ),
+                        (
+                            "wet bulb",
+                            Measure::Temperature.format_number_with_unit(s.wet_bulb(), u),
+                        ),
+                        (
+                            "dew point",
+                            Measure::Temperature.format_number_with_unit(s.dew_point(), u),
+                        ),
+                        ("relative humidity", format!("{:.0} %", s.rh_percent())),
+                        (
+                            "humidity ratio",
+                            format!(
+                                "{}  ({})",
+                                Measure::HumidityRatio.format_number_with_unit(s.hum_ratio(), u),
+                                Measure::HumidityRatioGrains
+                                    .format_number_with_unit(s.hum_ratio() * 1000.0, u)
+                            ),
+                        ),
+                        (
+                            "enthalpy",
+                            Measure::Enthalpy.format_number_with_unit(s.enthalpy(), u),
+                        ),
+                        (
+                            "specific volume",
+                            Measure::SpecificVolume.format_number_with_unit(s.specific_volume(), u),
+                        ),
+                        (
+                            "density",
+                            Measure::Density.format_number_with_unit(s.density(), u),
+                        ),
+                    ],
+                )
+            }
+        };
+        let pressure = match sys {
+            UnitSystem::Ip => Measure::Pressure.format_number_with_unit(p_psia, sys),
+            UnitSystem::Si => Measure::Pressure
+                .format_number_with_unit(p_psia * plenum_psychro::PA_PER_PSI / 1000.0, sys),
+        };
+        let site = match (&args.elevation, &args.pressure) {
+            (Some(e), _) => format!("at {} ({pressure})", e.trim()),
+            (None, Some(_)) => format!("at {pressure}"),
+            (None, None) => format!("at sea level ({pressure})"),
+        };
+        let mut out = format!("{}  {site}\n", args.state.trim());
+        for (name, value) in rows {
+            out.push_str(&format!("  {name:<18} {value}\n"));
+        }
+        out.push_str(
+            "  (ASHRAE Handbook—Fundamentals ch. 1 equations; check inputs and results before relying on them)\n",
+        );
+        out
+    }
+}

@@ -96,6 +96,13 @@ pub enum EngineError {
         /// Where the value was written.
         loc: Loc,
     },
+    /// A number that is NaN or infinite.
+    InputNotFinite {
+        /// The design-file key.
+        key: &'static str,
+        /// Where the value was written.
+        loc: Loc,
+    },
     /// Two keys that exclude each other were both given (a fan's `rise`
     /// with its `power` or `static`).
     ConflictingInputs {
@@ -227,6 +234,7 @@ impl EngineError {
             | EngineError::ZoneUnusable { loc, .. }
             | EngineError::MissingInput { loc, .. }
             | EngineError::InvalidInput { loc, .. }
+            | EngineError::InputNotFinite { loc, .. }
             | EngineError::ConflictingInputs { loc, .. }
             | EngineError::UnknownZone { loc }
             | EngineError::ZoneServedTwice { loc, .. }
@@ -243,6 +251,59 @@ impl EngineError {
     }
 }
 
+impl EngineError {
+    /// Whether every number the error carries is finite (the numbers of a
+    /// [`PsychroError`] are finite by that crate's contract).
+    pub fn numbers_are_finite(&self) -> bool {
+        let all = |v: &[f64]| v.iter().all(|x| x.is_finite());
+        match self {
+            EngineError::InvalidInput { value, .. } => value.is_finite(),
+            EngineError::SupplyNotBelowRoom {
+                supply_f, room_f, ..
+            } => all(&[*supply_f, *room_f]),
+            EngineError::OutdoorAirExceedsSupply {
+                fraction,
+                outdoor_cfm,
+                supply_cfm,
+                ..
+            } => all(&[*fraction, *outdoor_cfm, *supply_cfm]),
+            EngineError::CoilNotCooling {
+                entering_f,
+                leaving_f,
+                total_btuh,
+                ..
+            } => all(&[*entering_f, *leaving_f, *total_btuh]),
+            EngineError::NoSite { .. }
+            | EngineError::SiteUnusable { .. }
+            | EngineError::ZoneUnusable { .. }
+            | EngineError::MissingInput { .. }
+            | EngineError::InputNotFinite { .. }
+            | EngineError::ConflictingInputs { .. }
+            | EngineError::UnknownZone { .. }
+            | EngineError::ZoneServedTwice { .. }
+            | EngineError::UnknownCategory { .. }
+            | EngineError::NoSteadyState { .. }
+            | EngineError::NoConvergence { .. }
+            | EngineError::NoApparatusDewPoint { .. }
+            | EngineError::Psychro { .. }
+            | EngineError::NotFinite { .. } => true,
+        }
+    }
+
+    /// The error itself, or [`EngineError::NotFinite`] when it would carry
+    /// a non-finite number.
+    pub(crate) fn finite(self) -> EngineError {
+        if self.numbers_are_finite() {
+            self
+        } else {
+            EngineError::NotFinite {
+                field: "error",
+                loc: self.loc(),
+            }
+        }
+    }
+}
+
 /// Check a numeric input against what the method accepts.
 pub(crate) fn check(
     key: &'static str,
@@ -250,6 +311,9 @@ pub(crate) fn check(
     allowed: Allowed,
     loc: Loc,
 ) -> Result<f64, EngineError> {
+    if !value.is_finite() {
+        return Err(EngineError::InputNotFinite { key, loc });
+    }
     if allowed.admits(value) {
         Ok(value)
     } else {

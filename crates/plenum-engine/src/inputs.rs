@@ -90,7 +90,7 @@ pub(crate) fn site(
     let (p, source) = match (given(pressure_psia), given(elevation_ft)) {
         (Some((p, ploc)), elev) => {
             let p = check("pressure", p, Allowed::Positive, ploc)?;
-            if let Some((z, _)) = elev {
+            if let Some((z, _)) = elev.filter(|(z, _)| z.is_finite()) {
                 findings.push(Finding {
                     kind: FindingKind::ElevationIgnored {
                         elevation_ft: z,

@@ -204,21 +204,23 @@ use crate::finite::ensure_finite;
 /// chain has no answer carries the [`EngineError`] that says why.
 pub fn evaluate(design: &Design) -> Evaluation {
     let mut findings = Vec::new();
-    let site = inputs::site(design, &mut findings).and_then(|s| {
-        ensure_finite(&s, s.loc)?;
-        Ok(s)
-    });
+    let site = inputs::site(design, &mut findings)
+        .and_then(|s| {
+            ensure_finite(&s, s.loc)?;
+            Ok(s)
+        })
+        .map_err(EngineError::finite);
     let mut zone_inputs = Vec::with_capacity(design.zones.len());
     let mut zone_assumptions: Vec<Vec<A>> = Vec::with_capacity(design.zones.len());
     for z in &design.zones {
         let mut assumptions = Vec::new();
         let inputs = match &site {
-            Ok(s) => {
-                inputs::zone(z, s.pressure_psia, &mut assumptions, &mut findings).and_then(|zi| {
+            Ok(s) => inputs::zone(z, s.pressure_psia, &mut assumptions, &mut findings)
+                .and_then(|zi| {
                     ensure_finite(&zi, z.name_loc)?;
                     Ok(zi)
                 })
-            }
+                .map_err(EngineError::finite),
             Err(_) => Err(EngineError::SiteUnusable { loc: z.name_loc }),
         };
         zone_inputs.push(inputs);
@@ -233,7 +235,8 @@ pub fn evaluate(design: &Design) -> Evaluation {
             name: a.name.clone(),
             loc: a.name_loc,
             result: match &site {
-                Ok(s) => ahu_result(index, a, design, s, &zone_inputs, &zone_assumptions),
+                Ok(s) => ahu_result(index, a, design, s, &zone_inputs, &zone_assumptions)
+                    .map_err(EngineError::finite),
                 Err(_) => Err(EngineError::SiteUnusable { loc: a.name_loc }),
             },
         })

@@ -21,8 +21,8 @@ fn every_reference_design_file() {
     let mut worst = Worst::default();
     for name in &names {
         let path = dir.join("designs").join(format!("{name}.plenum"));
-        let text = std::fs::read_to_string(&path)
-            .unwrap_or_else(|e| panic!("{}: {e}", path.display()));
+        let text =
+            std::fs::read_to_string(&path).unwrap_or_else(|e| panic!("{}: {e}", path.display()));
         let (design, diags) = lower_text(&text);
         let errors: Vec<_> = diags
             .iter()
@@ -109,7 +109,14 @@ fn defaults_only_design_reports_each_default() {
     assert!(has("fan", Source::CommonPractice));
     assert!(has("leaving_rh", Source::CommonPractice));
     assert!(has("outdoor_air", Source::ProjectDefault));
-    assert!(has("distribution_effectiveness", Source::Ashrae621FromMemory));
-    let fan = r.assumptions.iter().find(|a| a.key == "fan").map(|a| a.value);
+    assert!(has(
+        "distribution_effectiveness",
+        Source::Ashrae621FromMemory
+    ));
+    let fan = r
+        .assumptions
+        .iter()
+        .find(|a| a.key == "fan")
+        .map(|a| a.value);
     assert!(matches!(fan, Some(AssumedValue::FanRise { dt_f, .. }) if dt_f == 2.0));
 }

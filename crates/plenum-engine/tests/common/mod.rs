@@ -7,6 +7,8 @@
 
 #![allow(dead_code)]
 
+pub mod build;
+
 use std::collections::BTreeMap;
 use std::path::PathBuf;
 

@@ -341,3 +341,162 @@ fn ahu_result(
     ensure_finite(&result, a.name_loc)?;
     Ok(result)
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use plenum_model::*;
+
+    fn loc() -> Loc {
+        Loc {
+            file: FileId(0),
+            span: Default::default(),
+        }
+    }
+
+    fn at<T>(v: T) -> At<T> {
+        At::new(v, loc())
+    }
+
+    fn office(latent: f64) -> Design {
+        Design {
+            site: Some(Site {
+                loc: loc(),
+                elevation_ft: None,
+                pressure_psia: None,
+                cooling: Some(at(AirSpec::DbWb {
+                    db_f: 95.0,
+                    wb_f: 75.0,
+                })),
+                dehumid: None,
+            }),
+            zones: vec![Zone {
+                id: ZoneId(0),
+                name: "z".into(),
+                label: None,
+                loc: loc(),
+                name_loc: loc(),
+                area_ft2: Some(at(1000.0)),
+                people: Some(at(5.0)),
+                category: Some(at("office".to_string())),
+                indoor: None,
+                sensible_btuh: Some(at(20_000.0)),
+                latent_btuh: Some(at(latent)),
+                distribution_effectiveness: None,
+            }],
+            ahus: vec![Ahu {
+                name: "a".into(),
+                label: None,
+                loc: loc(),
+                name_loc: loc(),
+                serves: vec![at(ZoneId(0))],
+                supply: None,
+                diversity: None,
+                supply_duct: None,
+                return_duct: None,
+                plenum_gain_btuh: None,
+                fan: None,
+                outdoor_air: Some(at(OutdoorAir::FractionOfSupply { fraction: 0.0 })),
+                occupant_diversity: None,
+                ventilation_efficiency: None,
+                outdoor_fan_rise_f: None,
+                coil: None,
+            }],
+            ..Design::default()
+        }
+    }
+
+    /// The finiteness guard names the first non-finite field it finds.
+    #[test]
+    fn finiteness_guard_catches_a_nan_anywhere() {
+        let e = evaluate(&office(1_000.0));
+        let Some(Ok(r)) = e.ahus.first().map(|a| a.result.clone()) else {
+            panic!("no result")
+        };
+        assert!(ensure_finite(&r, loc()).is_ok());
+        let mut bad = r.clone();
+        bad.cooling.coil.total_btuh = f64::NAN;
+        assert!(matches!(
+            ensure_finite(&bad, loc()),
+            Err(EngineError::NotFinite {
+                field: "coil.total_btuh",
+                ..
+            })
+        ));
+        let mut bad = r.clone();
+        bad.cooling.states.mixed.twb_f = f64::INFINITY;
+        assert!(matches!(
+            ensure_finite(&bad, loc()),
+            Err(EngineError::NotFinite {
+                field: "state.twb_f",
+                ..
+            })
+        ));
+        let mut bad = r;
+        bad.cooling.zones[0].e_vz = Some(f64::NAN);
+        assert!(ensure_finite(&bad, loc()).is_err());
+    }
+
+    /// A dry coil with no outdoor air has no steady state (methods.md step
+    /// 10). Through the public inputs this cannot happen — with x = 0 the
+    /// coil sees the return air, which is never drier than the supply for a
+    /// latent load ≥ 0 — so the guard is exercised here with a negative
+    /// latent load that input checking would reject.
+    #[test]
+    fn dry_coil_without_outdoor_air_has_no_steady_state() {
+        let d = office(1_000.0);
+        let mut findings = Vec::new();
+        let site = inputs::site(&d, &mut findings).unwrap_or_else(|e| panic!("{e:?}"));
+        let zone_inputs: Vec<_> = d
+            .zones
+            .iter()
+            .map(|z| inputs::zone(z, site.pressure_psia, &mut Vec::new(), &mut findings))
+            .collect();
+        let mut a = inputs::ahu(
+            0,
+            &d.ahus[0],
+            &d,
+            &zone_inputs,
+            &mut Vec::new(),
+            &mut findings,
+        )
+        .unwrap_or_else(|e| panic!("{e:?}"));
+        a.zones[0].q_l = -1_000.0;
+        let r = chain::solve_case(
+            &a,
+            site.pressure_psia,
+            DesignCase::Cooling,
+            &site.cooling,
+            &mut findings,
+        );
+        assert!(matches!(r, Err(EngineError::NoSteadyState { .. })));
+        // With zero latent load the coil is wet with no condensate: W_on = W_off.
+        a.zones[0].q_l = 0.0;
+        let r = chain::solve_case(
+            &a,
+            site.pressure_psia,
+            DesignCase::Cooling,
+            &site.cooling,
+            &mut findings,
+        )
+        .unwrap_or_else(|e| panic!("{e:?}"));
+        assert!(!r.coil.dry);
+        assert_eq!(r.coil.condensate_lb_h, 0.0);
+    }
+
+    /// No error carries a non-finite number: such an error becomes `NotFinite`.
+    #[test]
+    fn errors_never_carry_non_finite_numbers() {
+        let e = EngineError::OutdoorAirExceedsSupply {
+            case: DesignCase::Cooling,
+            fraction: f64::INFINITY,
+            outdoor_cfm: 1.0,
+            supply_cfm: 1.0,
+            loc: loc(),
+        };
+        assert!(!e.numbers_are_finite());
+        assert!(matches!(e.finite(), EngineError::NotFinite { .. }));
+        let ok = EngineError::UnknownZone { loc: loc() };
+        assert_eq!(ok.clone().finite(), ok);
+    }
+}

@@ -926,3 +926,27 @@ fn zone_results() {
     assert_close!(f.v_oz_cfm, 170.0, 1e-12);
     assert!(e.zones[1].served_by.is_empty() && e.zones[1].flow.is_none());
 }
+
+/// A coil leaving saturated (leaving_rh 100 %) has its ADP at the leaving
+/// state and a bypass factor of zero (README choice 21); a leaving RH below
+/// 85 % is a finding (methods.md §5, *common practice*).
+#[test]
+fn saturated_and_low_leaving_rh() {
+    let mut d = office();
+    d.ahus[0].coil = Some(Coil {
+        leaving_rh: Some(at(1.0)),
+        ..coil()
+    });
+    let c = result(&d).cooling;
+    assert!((c.coil.adp_f - c.states.leaving.tdb_f).abs() < 1e-6);
+    assert!(c.coil.bypass_factor.abs() < 1e-6);
+    d.ahus[0].coil = Some(Coil {
+        leaving_rh: Some(at_n(0.80, 8)),
+        ..coil()
+    });
+    let r = result(&d);
+    assert!(r.findings.iter().any(|f| matches!(
+        f.kind,
+        FindingKind::LeavingRhLow { leaving_rh_pct, .. } if (leaving_rh_pct - 80.0).abs() < 1e-6
+    ) && f.loc == loc_n(8)));
+}

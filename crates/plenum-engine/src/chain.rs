@@ -150,7 +150,7 @@ impl Ctx<'_> {
         )
     }
 
-    fn not_positive(&self, field: &'static str) -> EngineError {
+    fn flow_not_finite(&self, field: &'static str) -> EngineError {
         EngineError::NotFinite {
             field,
             loc: self.a.locs.ahu,
@@ -180,7 +180,7 @@ impl Ctx<'_> {
                 .collect();
             let m = inp.diversity * m_z.iter().sum::<f64>();
             if !(m.is_finite() && m > 0.0) {
-                return Err(self.not_positive("dry_air_flow_lb_h"));
+                return Err(self.flow_not_finite("dry_air_flow_lb_h"));
             }
             let v_s = self.psy(Point::Supply, ip::specific_volume(t_s, w_s, self.p))?;
             let cfm_s = m * v_s / 60.0;

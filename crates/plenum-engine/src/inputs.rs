@@ -632,12 +632,11 @@ pub(crate) fn ahu(
                 }
             };
             let fan = match (given(&f.power), given(&f.rise_f)) {
-                (Some((power, ploc)), Some((_, rloc))) => {
+                (Some((power, _)), Some((_, rloc))) => {
                     let first = match power {
                         FanPower::Shaft { .. } => "power",
                         FanPower::Static { .. } => "static",
                     };
-                    let _ = ploc;
                     return Err(EngineError::ConflictingInputs {
                         first,
                         second: "rise",

@@ -99,6 +99,26 @@
 //!     they agree within a few per cent, at elevation the exact ones are
 //!     right.
 //!
+//! # Where the reference leaves a case open
+//!
+//! The engine makes the reference README's 26 choices. Where a design goes
+//! beyond what the reference accepts, the engine decides as follows (no
+//! reference case exercises these):
+//!
+//! * a `fan` block with neither `power`, `static` nor `rise` gets the 2 °F
+//!   default rise with the block's arrangement (an assumption), where the
+//!   reference rejects it; `rise` together with `power` or `static` is an
+//!   error, as there;
+//! * `rated_sensible` without `rated` still makes a coil undersized when the
+//!   required sensible exceeds it (otherwise the status is `unrated`);
+//! * a zone's sensible gain must be above zero (it sets the zone's airflow;
+//!   with none, its Z_pz and its resulting humidity have no value);
+//! * a zone with a 62.1 category whose area rate is not zero but no `area`
+//!   is a finding, and 0 ft² is used, as the reference does;
+//! * the assumptions also name `people 0`, `use` none, and the per-length
+//!   duct rates (1.5 and 1.0 °F per 100 ft), which the reference's
+//!   `defaults_used` leaves out.
+//!
 //! Every default applied is an [`Assumption`] naming the key, the value and
 //! its source. Every numerical dead end — no root, no convergence within
 //! the bounded passes, outdoor air above supply, a state outside the

@@ -37,8 +37,8 @@ fn the_library_example_lowers_with_its_values() {
     assert_eq!(
         site.cooling.unwrap().value,
         AirSpec::DbWb {
-            db_f: 93.0,
-            wb_f: 74.0
+            db_f: 96.0,
+            wb_f: 66.0
         }
     );
     let reading = d.zone_by_name("reading").unwrap();

@@ -15,10 +15,48 @@
 //! ```
 //!
 //! The formatter changes only whitespace, line breaks and `;`, and moves no
-//! comment past a token. Before it returns, it parses its own output and checks
-//! that the tree (every block, key, number, unit and name, compared without
-//! positions) and the comments are those of the input; if they are not, it
-//! returns [`FormatError::Internal`] and the file must be left as it is.
+//! comment past a token (one exception: the note after a one-line block, see
+//! *Comments*). Before it returns, it parses its own output and checks that
+//! the tree (every block, key, number, unit and name, compared without
+//! positions) and the comments, in order, are those of the input; if they are
+//! not, it returns [`FormatError::Internal`] and the file must be left as it
+//! is.
+//!
+//! A file in the canonical layout (a doc test checks that it is):
+//!
+//! ```
+//! let canonical = r#"# Demo wing: the main rules in one file.
+//!
+//! use "shared/site.plenum"
+//!
+//! let lights = 0.9 W/ft² * 2_400 ft²
+//!
+//! zone reading "Reading room" {  # the header's note
+//!   area     2_400 ft²
+//!   people   40
+//!   ## an own-line comment does not break the alignment
+//!   sensible 38.5 kBtu/h + lights  # trailing comments of a group align
+//!   latent   8.2 kBtu/h            # in one column
+//!
+//!   indoor 75 °F, 50 %rh  # a blank line starts a new group
+//! }
+//!
+//! zone stacks "Stacks" like reading {}
+//!
+//! ahu ahu_1 {
+//!   serves      reading,  # a comment inside a list keeps its line break
+//!               stacks
+//!   supply_temp 57 °F
+//!   fan {
+//!     static           2.5 in.wg with efficiency 62 %
+//!     motor_efficiency 91 %
+//!   }
+//!   outdoor_air 15 cfm/person
+//!   ## the last line of the block
+//! }
+//! "#;
+//! assert_eq!(plenum_fmt::format(canonical).unwrap(), canonical);
+//! ```
 //!
 //! # The layout
 //!
@@ -92,12 +130,13 @@
 //!   entry indent (one level deeper than the `}`, since the comment is inside
 //!   the block); at the top level, at column 0. A blank line the author left
 //!   before it is kept (one at most), as for entries.
-//! - A comment inside a value, after a comma or an operator (or inside
-//!   parentheses), keeps the line break that follows it: the value continues
+//! - A comment inside an item, where the format allows a line break (after
+//!   a comma, an operator, `=`, `like`, `to` or `with`, or anywhere inside
+//!   parentheses), keeps the line break that follows it: the item continues
 //!   on the next line, aligned under the value's first character (for a
-//!   property) or indented four spaces deeper than the item (a `let`, `use`
-//!   or block header, whose `like` may be followed by a comment). Own-line
-//!   comments there are printed at that continuation column.
+//!   property) or indented four spaces deeper than the item (a `let` or a
+//!   block header). Own-line comments there are printed at that
+//!   continuation column. This is the only way an item spans lines.
 //! - A block written on one line with a comment after its `}`
 //!   (`zone a { area 5 ft²; people 2 }  # note`) is split over lines, and the
 //!   comment moves to the header line after the `{`, where it was read as the

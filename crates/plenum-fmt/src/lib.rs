@@ -1,7 +1,7 @@
 //! The canonical formatter for Plenum design files (`*.plenum`), and the
 //! project's style reference.
 //!
-//! [`format`] rewrites a file in the one layout described below;
+//! [`format`](fn@format) rewrites a file in the one layout described below;
 //! [`format_edits`] gives the same result as a list of small text edits (what
 //! an editor applies on a formatting request). A file with syntax errors is
 //! never formatted: both return [`FormatError::Syntax`].
@@ -233,7 +233,7 @@ pub fn format(text: &str) -> Result<String, FormatError> {
     Ok(out)
 }
 
-/// The edits that turn `text` into [`format`]`(text)`: few and small (a line
+/// The edits that turn `text` into [`format`](fn@format)`(text)`: few and small (a line
 /// diff, each changed hunk trimmed to the bytes that differ), sorted and
 /// non-overlapping, with byte ranges into `text`. An already formatted text
 /// gives no edit.

@@ -5,6 +5,7 @@
 
 mod air;
 mod check;
+mod fmt;
 mod diag;
 mod files;
 mod render;
@@ -32,6 +33,8 @@ enum Command {
     Check(CheckArgs),
     /// Show the properties of one moist-air state.
     Air(air::AirArgs),
+    /// Rewrite design files in the canonical layout.
+    Fmt(fmt::FmtArgs),
 }
 
 #[derive(clap::Args, Debug)]
@@ -82,6 +85,7 @@ fn main() -> ExitCode {
     let result = match cli.command {
         Command::Check(args) => check::run(&args.paths, args.format),
         Command::Air(args) => air::run(&args),
+        Command::Fmt(args) => fmt::run(&args),
     };
     match result {
         Ok(code) => code,

@@ -37,7 +37,12 @@ fn results(path: &Path, text: &str) -> String {
         }
     }
     let model = Model::build(&fs, path, text.to_string());
-    assert!(model.diagnostics.is_empty(), "{}: {:#?}", path.display(), model.diagnostics);
+    assert!(
+        model.diagnostics.is_empty(),
+        "{}: {:#?}",
+        path.display(),
+        model.diagnostics
+    );
     let evaluation = plenum_engine::evaluate(&model.design);
     let debug = format!("{:#?}", evaluation);
     blank_locations(&debug)
@@ -95,17 +100,29 @@ fn untidy(text: &str) -> String {
 #[test]
 fn formatting_changes_no_computed_result() {
     let files = designs();
-    assert!(files.len() >= 10, "expected the examples and the reference designs");
+    assert!(
+        files.len() >= 10,
+        "expected the examples and the reference designs"
+    );
     for path in files {
         let text = std::fs::read_to_string(&path).unwrap();
         let before = results(&path, &text);
-        assert!(before.contains("total_btuh"), "{}: nothing was computed", path.display());
+        assert!(
+            before.contains("total_btuh"),
+            "{}: nothing was computed",
+            path.display()
+        );
         let formatted = plenum_fmt::format(&text).unwrap();
         assert_eq!(before, results(&path, &formatted), "{}", path.display());
         let messy = untidy(&text);
         assert_ne!(messy, text);
         let reformatted = plenum_fmt::format(&messy).unwrap();
-        assert_eq!(reformatted, formatted, "{}: formatting is not canonical", path.display());
+        assert_eq!(
+            reformatted,
+            formatted,
+            "{}: formatting is not canonical",
+            path.display()
+        );
         assert_eq!(before, results(&path, &reformatted), "{}", path.display());
     }
 }

@@ -134,7 +134,8 @@ pub struct Property {
 pub struct Value {
     pub span: Span,
     pub elements: Elements,
-    pub with: Vec<With>,
+    /// `with` clauses (a boxed slice: most values have none, and it costs no allocation then).
+    pub with: Box<[With]>,
 }
 
 /// The comma-separated elements of a value: at least one. Stored as the
@@ -143,7 +144,7 @@ pub struct Value {
 #[derive(Clone, Debug, PartialEq)]
 pub struct Elements {
     pub first: Element,
-    pub rest: Vec<Element>,
+    pub rest: Box<[Element]>,
 }
 
 impl Elements {

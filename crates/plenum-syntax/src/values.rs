@@ -142,14 +142,14 @@ impl<'a> Cur<'a> {
                 value: Value {
                     span: inner_span,
                     elements: inner,
-                    with: Vec::new(),
+                    with: Box::default(),
                 },
             });
         }
         Ok(Value {
             span,
             elements,
-            with,
+            with: with.into_boxed_slice(),
         })
     }
 
@@ -160,7 +160,10 @@ impl<'a> Cur<'a> {
             self.bump();
             rest.push(self.element()?);
         }
-        Ok(Elements { first, rest })
+        Ok(Elements {
+            first,
+            rest: rest.into_boxed_slice(),
+        })
     }
 
     fn qualifier(&mut self) -> Option<Name> {

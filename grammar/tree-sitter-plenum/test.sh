@@ -1,7 +1,8 @@
 #!/usr/bin/env bash
 # Tests of the tree-sitter grammar, for CI and for people:
 #   1. the committed generated parser is what `tree-sitter generate` makes of grammar.js;
-#   2. the corpus (test/corpus) and the highlight assertions (test/highlight) pass;
+#   2. the corpus (test/corpus) and the highlight assertions (test/highlight) pass,
+#      and every query compiles;
 #   3. every design in the repository parses with no ERROR or MISSING node: the
 #      examples, the coil reference designs, the syntax crate's valid fixtures, the
 #      TextMate test fixture and every `plenum` code block of grammar/README.md.
@@ -44,9 +45,10 @@ step "using $ts ($("$ts" --version))"
 
 work="$(mktemp -d)"
 trap 'rm -rf "$work"' EXIT
-# An empty configuration (no parser directories, no warning about them), and the
+# A configuration with an empty parser directory (so no warning about none), and the
 # compiled parser kept out of the user's cache.
-printf '{ "parser-directories": [] }\n' >"$work/config.json"
+mkdir -p "$work/parsers"
+printf '{ "parser-directories": ["%s"] }\n' "$work/parsers" >"$work/config.json"
 export TREE_SITTER_LIBDIR="$work/lib"
 mkdir -p "$TREE_SITTER_LIBDIR"
 runtime=node
@@ -75,6 +77,12 @@ fi
 
 step "corpus and highlight tests"
 "$ts" test --config-path "$work/config.json"
+
+step "the queries compile (highlights, folds, locals)"
+for query in queries/*.scm; do
+  "$ts" query -p "$here" --config-path "$work/config.json" --quiet "$query" "$root/examples/library.plenum" >/dev/null \
+    || { echo "error: $query does not compile against the grammar" >&2; exit 1; }
+done
 
 step "every design in the repository parses without ERROR or MISSING nodes"
 designs="$work/designs"

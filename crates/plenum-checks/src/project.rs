@@ -1,0 +1,269 @@
+//! The project runner shared by the CLI and the language server: from a set
+//! of files to every design's model, evaluation and diagnostics.
+
+use std::collections::{BTreeMap, HashMap, HashSet};
+use std::path::{Path, PathBuf};
+
+use plenum_engine::Evaluation;
+use plenum_model::fs::normalize;
+use plenum_model::{FileSystem, Model};
+use plenum_syntax::{Item, LineIndex, Span};
+
+use crate::config::Config;
+use crate::diagnostic::{Diagnostic, Loc};
+
+/// One file of the project, with its text and its diagnostics.
+#[derive(Clone, Debug)]
+pub struct FileReport {
+    /// The path, normalised as the runner was given it.
+    pub path: PathBuf,
+    /// The text the diagnostics point into (for a file that is not UTF-8,
+    /// the valid part before the first bad byte).
+    pub text: String,
+    /// Byte offsets ↔ lines and columns of `text`.
+    pub lines: LineIndex,
+    /// The file's diagnostics, sorted by position.
+    pub diagnostics: Vec<Diagnostic>,
+}
+
+/// One design: a root file and everything it `use`s, with its results.
+///
+/// This is what `plenum report` renders and what the language server's
+/// hover reads: the [`Model`] (files, typed design, symbols) and the
+/// engine's [`Evaluation`] of it.
+#[derive(Clone, Debug)]
+pub struct Design {
+    /// The root file.
+    pub root: PathBuf,
+    /// The loaded design.
+    pub model: Model,
+    /// The engine's results.
+    pub evaluation: Evaluation,
+    /// The settings that applied to it.
+    pub config: Config,
+}
+
+/// Everything the runner found.
+#[derive(Clone, Debug, Default)]
+pub struct Project {
+    /// Every file with diagnostics or read as part of a design (the given
+    /// files, the files they `use`, and `plenum.toml` files), sorted by path.
+    pub files: Vec<FileReport>,
+    /// Every design, in the order of its root among the given files.
+    pub designs: Vec<Design>,
+    /// Given files that could not be read, with the reason.
+    pub unreadable: Vec<(PathBuf, String)>,
+}
+
+impl Project {
+    /// The report of one file.
+    pub fn file(&self, path: &Path) -> Option<&FileReport> {
+        let path = normalize(path);
+        self.files.iter().find(|f| f.path == path)
+    }
+
+    /// Every diagnostic of every file.
+    pub fn diagnostics(&self) -> impl Iterator<Item = (&FileReport, &Diagnostic)> {
+        self.files
+            .iter()
+            .flat_map(|f| f.diagnostics.iter().map(move |d| (f, d)))
+    }
+
+    /// How many diagnostics there are of a severity.
+    pub fn count(&self, severity: crate::Severity) -> usize {
+        self.diagnostics()
+            .filter(|(_, d)| d.severity == severity)
+            .count()
+    }
+}
+
+/// The design roots among `texts`: every file that no other file of the set
+/// `use`s. A file that another file `use`s is checked through that design.
+pub fn roots(texts: &[(PathBuf, String)]) -> Vec<PathBuf> {
+    let mut used = HashSet::new();
+    for (path, text) in texts {
+        let dir = path.parent().unwrap_or(Path::new(""));
+        for item in &plenum_syntax::parse(text).file.items {
+            if let Item::Use(u) = item {
+                used.insert(normalize(&dir.join(&u.path.value)));
+            }
+        }
+    }
+    let mut roots: Vec<PathBuf> = texts
+        .iter()
+        .map(|(p, _)| normalize(p))
+        .filter(|p| !used.contains(p))
+        .collect();
+    // Files that only use each other in a circle have no root: check each
+    // of them on its own, so that the cycle is reported.
+    let in_roots: HashSet<PathBuf> = roots.iter().cloned().collect();
+    let reached = reachable(texts, &in_roots);
+    for (p, _) in texts {
+        let p = normalize(p);
+        if !reached.contains(&p) && !roots.contains(&p) {
+            roots.push(p);
+        }
+    }
+    roots
+}
+
+/// The files reachable by `use` from `from` (themselves included).
+fn reachable(texts: &[(PathBuf, String)], from: &HashSet<PathBuf>) -> HashSet<PathBuf> {
+    let by_path: HashMap<PathBuf, &str> = texts
+        .iter()
+        .map(|(p, t)| (normalize(p), t.as_str()))
+        .collect();
+    let mut seen: HashSet<PathBuf> = from.clone();
+    let mut stack: Vec<PathBuf> = from.iter().cloned().collect();
+    while let Some(p) = stack.pop() {
+        let Some(text) = by_path.get(&p) else {
+            continue;
+        };
+        let dir = p.parent().unwrap_or(Path::new("")).to_path_buf();
+        for item in &plenum_syntax::parse(text).file.items {
+            if let Item::Use(u) = item {
+                let q = normalize(&dir.join(&u.path.value));
+                if seen.insert(q.clone()) {
+                    stack.push(q);
+                }
+            }
+        }
+    }
+    seen
+}
+
+/// Check a set of design files read through `fs`.
+///
+/// Finds the design roots ([`roots`]), builds each design's model, evaluates
+/// it, runs the checks with the settings of the `plenum.toml` above the root
+/// ([`Config::discover`]) and merges the diagnostics per file: a diagnostic
+/// that several designs share (one in a `use`d file) is reported once, and a
+/// suppression in a shared file is unused only when no design uses it. A
+/// file that is not UTF-8 gets one `invalid-utf8` error and is not built.
+pub fn check_files(fs: &dyn FileSystem, paths: &[PathBuf]) -> Project {
+    let mut project = Project::default();
+    let mut reports: BTreeMap<PathBuf, FileReport> = BTreeMap::new();
+    let mut texts: Vec<(PathBuf, String)> = Vec::new();
+    let mut given: HashSet<PathBuf> = HashSet::new();
+    for path in paths {
+        let path = normalize(path);
+        if !given.insert(path.clone()) {
+            continue;
+        }
+        match fs.read(&path) {
+            Ok(bytes) => match String::from_utf8(bytes) {
+                Ok(text) => texts.push((path, text)),
+                Err(e) => {
+                    let at = e.utf8_error().valid_up_to();
+                    let prefix = String::from_utf8_lossy(&e.into_bytes()[..at]).into_owned();
+                    let d = Diagnostic::new(
+                        "invalid-utf8",
+                        Loc::new(&path, Span::from_range(at..at)),
+                        "file is not valid UTF-8",
+                    )
+                    .label("the first invalid byte is here")
+                    .help("save the file as UTF-8");
+                    reports.insert(
+                        path.clone(),
+                        FileReport {
+                            lines: LineIndex::new(&prefix),
+                            path,
+                            text: prefix,
+                            diagnostics: vec![d],
+                        },
+                    );
+                }
+            },
+            Err(e) => project.unreadable.push((path, e.to_string())),
+        }
+    }
+    let roots = roots(&texts);
+    let by_path: HashMap<&Path, &str> = texts
+        .iter()
+        .map(|(p, t)| (p.as_path(), t.as_str()))
+        .collect();
+    let mut configs: HashMap<PathBuf, Config> = HashMap::new();
+    // Per unused suppression (file, span): how many designs reported it.
+    let mut unused: HashMap<(PathBuf, Span), (usize, Diagnostic)> = HashMap::new();
+    // Per file: how many designs include it.
+    let mut designs_of: HashMap<PathBuf, usize> = HashMap::new();
+    let mut seen: HashSet<(PathBuf, &'static str, Span, String)> = HashSet::new();
+    for root in &roots {
+        let Some(text) = by_path.get(root.as_path()) else {
+            continue;
+        };
+        let model = Model::build(fs, root, (*text).to_string());
+        let evaluation = plenum_engine::evaluate(&model.design);
+        let config = match plenum_model::fs::config_file(fs, root) {
+            Some(cfg) => configs
+                .entry(cfg.clone())
+                .or_insert_with(|| Config::read(fs, &cfg))
+                .clone(),
+            None => Config::new(),
+        };
+        for f in &model.files {
+            *designs_of.entry(f.path.clone()).or_default() += 1;
+            reports.entry(f.path.clone()).or_insert_with(|| FileReport {
+                path: f.path.clone(),
+                text: f.text.clone(),
+                lines: f.lines.clone(),
+                diagnostics: Vec::new(),
+            });
+        }
+        for d in crate::check(&model, &evaluation, &config) {
+            if d.code == "unused-suppression" {
+                let key = (d.loc.file.clone(), d.loc.span);
+                unused.entry(key).or_insert((0, d)).0 += 1;
+                continue;
+            }
+            push(&mut reports, &mut seen, d);
+        }
+        project.designs.push(Design {
+            root: root.clone(),
+            model,
+            evaluation,
+            config,
+        });
+    }
+    let mut unused: Vec<_> = unused.into_iter().collect();
+    unused.sort_by(|a, b| a.0.cmp(&b.0));
+    for ((file, _), (count, d)) in unused {
+        if designs_of.get(&file).copied().unwrap_or(0) <= count {
+            push(&mut reports, &mut seen, d);
+        }
+    }
+    let mut configs: Vec<Config> = configs.into_values().collect();
+    configs.sort_by(|a, b| a.path.cmp(&b.path));
+    for c in configs {
+        let Some(path) = &c.path else { continue };
+        if c.diagnostics.is_empty() {
+            continue;
+        }
+        let report = reports.entry(path.clone()).or_insert_with(|| FileReport {
+            path: path.clone(),
+            lines: LineIndex::new(&c.text),
+            text: c.text.clone(),
+            diagnostics: Vec::new(),
+        });
+        report.diagnostics.extend(c.diagnostics.iter().cloned());
+    }
+    for r in reports.values_mut() {
+        r.diagnostics
+            .sort_by_key(|d| (d.loc.span.start, d.loc.span.end));
+    }
+    project.files = reports.into_values().collect();
+    project
+}
+
+fn push(
+    reports: &mut BTreeMap<PathBuf, FileReport>,
+    seen: &mut HashSet<(PathBuf, &'static str, Span, String)>,
+    d: Diagnostic,
+) {
+    if !seen.insert((d.loc.file.clone(), d.code, d.loc.span, d.message.clone())) {
+        return;
+    }
+    if let Some(r) = reports.get_mut(&d.loc.file) {
+        r.diagnostics.push(d);
+    }
+}

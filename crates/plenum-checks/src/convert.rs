@@ -541,6 +541,13 @@ impl Ctx<'_> {
             {
                 continue;
             }
+            if let FindingKind::LeavingRhLow { .. } = f.kind
+                && f.case.and_then(|c| r.case(c)).is_some_and(|c| c.coil.dry)
+            {
+                // A dry coil's leaving RH follows from the entering air: it
+                // is no assumption to question.
+                continue;
+            }
             if let FindingKind::RoomAboveDesignHumidity { zone, .. } = f.kind
                 && band.contains(&zone)
             {
@@ -891,33 +898,31 @@ impl Ctx<'_> {
             } => {
                 let total_m = rated_btuh.map(|r| r / required_btuh - 1.0);
                 let sens_m = rated_sensible_btuh.map(|r| r / required_sensible_btuh - 1.0);
-                let mut parts = Vec::new();
                 let total_short = total_m.is_some_and(|m| m < 0.0);
-                if let (Some(r), Some(m)) = (rated_btuh, total_m) {
-                    parts.push(format!(
-                        "{}needs {} total and is rated {}, a margin of {}",
-                        if total_short { "" } else { "total: " },
+                let total = match (rated_btuh, total_m) {
+                    (Some(r), Some(m)) => Some(format!(
+                        "needs {} total and is rated {}, a margin of {}",
                         capacity(*required_btuh, si),
                         capacity(*r, si),
                         margin(m)
-                    ));
-                }
-                if let (Some(r), Some(m)) = (rated_sensible_btuh, sens_m) {
-                    parts.push(format!(
-                        "sensible: needs {} and is rated {}, a margin of {}",
+                    )),
+                    _ => None,
+                };
+                let sensible = match (rated_sensible_btuh, sens_m) {
+                    (Some(r), Some(m)) => Some(format!(
+                        "needs {} sensible and is rated {} sensible, a margin of {}",
                         capacity(*required_sensible_btuh, si),
                         capacity(*r, si),
                         margin(m)
-                    ));
-                }
-                if !total_short {
-                    parts.reverse();
-                }
-                let what = if total_short {
-                    "undersized"
-                } else {
-                    "undersized in sensible capacity"
+                    )),
+                    _ => None,
                 };
+                let (what, parts) = if total_short {
+                    ("undersized", [total, sensible])
+                } else {
+                    ("undersized in sensible capacity", [sensible, total])
+                };
+                let parts: Vec<String> = parts.into_iter().flatten().collect();
                 let worst = total_m.into_iter().chain(sens_m).fold(f64::INFINITY, f64::min);
                 (
                     Diagnostic::new(code, loc, format!("{who} is {what}: {}", parts.join("; ")))
@@ -1076,13 +1081,23 @@ impl Ctx<'_> {
             ),
             AssumedValue::Keyword(k) => format!("`{k}`"),
         };
+        let what = match a.value {
+            AssumedValue::RisePer100Ft { .. } => {
+                format!("the rise per 100 ft of `{}` of {of} is not given", a.key)
+            }
+            _ => format!("`{}` of {of} is not given", a.key),
+        };
         Diagnostic::new(
             ASSUMPTION,
             self.header_loc(a.loc),
             format!(
-                "`{}` of {of} is not given: {value} is used ({})",
-                a.key,
-                a.source.label()
+                "{what}: {value} is used ({})",
+                match a.source {
+                    plenum_engine::Source::CommonPractice => "common practice",
+                    plenum_engine::Source::ProjectDefault => "a project default",
+                    plenum_engine::Source::Ashrae621FromMemory =>
+                        "ASHRAE 62.1-2019, written from memory",
+                }
             ),
         )
         .label("a default is used here")

@@ -142,8 +142,12 @@ pub fn check(model: &Model, evaluation: &Evaluation, config: &Config) -> Vec<Dia
                     && (m.code == d.code || overlaps(m.loc.span, d.loc.span))
             })
         });
+        let explained = model_errors
+            || engine
+                .iter()
+                .any(|d| d.code != "not-evaluated" && d.severity == Severity::Error);
         for d in &mut engine {
-            if d.code == "not-evaluated" && !model_errors {
+            if d.code == "not-evaluated" && !explained {
                 // Nothing else explains it: CI must not pass a unit that
                 // was not computed.
                 d.severity = Severity::Error;
@@ -192,8 +196,9 @@ fn overlaps(a: plenum_syntax::Span, b: plenum_syntax::Span) -> bool {
     a.start < b.end && b.start < a.end || a == b
 }
 
-/// Drop a diagnostic with the same code at the same place as an earlier one.
+/// Drop a diagnostic that repeats an earlier one (the same code, place and
+/// message: an engine finding and error that say the same thing).
 fn dedupe(diags: &mut Vec<Diagnostic>) {
     let mut seen = HashSet::new();
-    diags.retain(|d| seen.insert((d.code, d.loc.clone())));
+    diags.retain(|d| seen.insert((d.code, d.loc.clone(), d.message.clone())));
 }

@@ -12,6 +12,12 @@ use plenum_syntax::{Item, LineIndex, Span};
 use crate::config::Config;
 use crate::diagnostic::{Diagnostic, Loc};
 
+/// Findings that something is absent (a zone no unit serves, a suppression
+/// that silences nothing). In a file that several designs share, each
+/// design sees only its part, so such a finding stands only when every
+/// design that includes the file reports it.
+const ABSENCE: [&str; 2] = ["unused-suppression", "unserved-zone"];
+
 /// One file of the project, with its text and its diagnostics.
 #[derive(Clone, Debug)]
 pub struct FileReport {
@@ -94,13 +100,13 @@ pub fn roots(texts: &[(PathBuf, String)]) -> Vec<PathBuf> {
         .map(|(p, _)| normalize(p))
         .filter(|p| !used.contains(p))
         .collect();
-    // Files that only use each other in a circle have no root: check each
-    // of them on its own, so that the cycle is reported.
-    let in_roots: HashSet<PathBuf> = roots.iter().cloned().collect();
-    let reached = reachable(texts, &in_roots);
+    // Files that only use each other in a circle have no root: the first of
+    // each circle becomes one, so that the cycle is reported (once).
+    let mut reached = reachable(texts, &roots.iter().cloned().collect());
     for (p, _) in texts {
         let p = normalize(p);
-        if !reached.contains(&p) && !roots.contains(&p) {
+        if !reached.contains(&p) {
+            reached.extend(reachable(texts, &HashSet::from([p.clone()])));
             roots.push(p);
         }
     }
@@ -137,8 +143,9 @@ fn reachable(texts: &[(PathBuf, String)], from: &HashSet<PathBuf>) -> HashSet<Pa
 /// Finds the design roots ([`roots`]), builds each design's model, evaluates
 /// it, runs the checks with the settings of the `plenum.toml` above the root
 /// ([`Config::discover`]) and merges the diagnostics per file: a diagnostic
-/// that several designs share (one in a `use`d file) is reported once, and a
-/// suppression in a shared file is unused only when no design uses it. A
+/// that several designs share (one in a `use`d file) is reported once; a
+/// suppression in a shared file is unused, and a zone in it unserved, only
+/// when no design uses the suppression or serves the zone. A
 /// file that is not UTF-8 gets one `invalid-utf8` error and is not built.
 pub fn check_files(fs: &dyn FileSystem, paths: &[PathBuf]) -> Project {
     let mut project = Project::default();
@@ -183,8 +190,8 @@ pub fn check_files(fs: &dyn FileSystem, paths: &[PathBuf]) -> Project {
         .map(|(p, t)| (p.as_path(), t.as_str()))
         .collect();
     let mut configs: HashMap<PathBuf, Config> = HashMap::new();
-    // Per unused suppression (file, span): how many designs reported it.
-    let mut unused: HashMap<(PathBuf, Span), (usize, Diagnostic)> = HashMap::new();
+    // Per finding of an absence (file, code, span): how many designs reported it.
+    let mut unused: HashMap<(PathBuf, &'static str, Span), (usize, Diagnostic)> = HashMap::new();
     // Per file: how many designs include it.
     let mut designs_of: HashMap<PathBuf, usize> = HashMap::new();
     let mut seen: HashSet<(PathBuf, &'static str, Span, String)> = HashSet::new();
@@ -211,8 +218,8 @@ pub fn check_files(fs: &dyn FileSystem, paths: &[PathBuf]) -> Project {
             });
         }
         for d in crate::check(&model, &evaluation, &config) {
-            if d.code == "unused-suppression" {
-                let key = (d.loc.file.clone(), d.loc.span);
+            if ABSENCE.contains(&d.code) {
+                let key = (d.loc.file.clone(), d.code, d.loc.span);
                 unused.entry(key).or_insert((0, d)).0 += 1;
                 continue;
             }
@@ -227,7 +234,7 @@ pub fn check_files(fs: &dyn FileSystem, paths: &[PathBuf]) -> Project {
     }
     let mut unused: Vec<_> = unused.into_iter().collect();
     unused.sort_by(|a, b| a.0.cmp(&b.0));
-    for ((file, _), (count, d)) in unused {
+    for ((file, _, _), (count, d)) in unused {
         if designs_of.get(&file).copied().unwrap_or(0) <= count {
             push(&mut reports, &mut seen, d);
         }

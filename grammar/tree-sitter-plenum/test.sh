@@ -11,7 +11,7 @@
 # Node.js (without it, generation uses the CLI's built-in QuickJS; the output is the
 # same). The CLI is looked for as $TREE_SITTER, on PATH and in $CARGO_HOME/bin, and
 # installed from crates.io into $CARGO_HOME/bin when no copy of the pinned version is
-# found (about 5.5 minutes on 2 cores).
+# found (5 to 12 minutes on 2 cores, depending on what else is building).
 set -euo pipefail
 
 TREE_SITTER_VERSION=0.27.1

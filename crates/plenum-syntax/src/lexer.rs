@@ -18,6 +18,9 @@ use crate::span::Span;
 /// Deepest nesting of `{ }` and `( )` the parser accepts.
 pub const MAX_NESTING: usize = 64;
 
+/// Deepest nesting of parenthesised groups inside one unit (`Btu/(h·ft²)` is one).
+pub const MAX_UNIT_GROUPS: usize = 4;
+
 /// The kinds of token. `Unit` never comes out of logos: [`normalize`] makes it.
 #[derive(Logos, Clone, Copy, Debug, PartialEq, Eq, Hash, PartialOrd, Ord)]
 #[logos(skip r"[ \t\f\r\u{FEFF}]+")]
@@ -340,7 +343,7 @@ fn normalize_into(text: &str, out: &mut Output<'_>, errors: &mut Vec<SyntaxError
                     && next.kind.starts_unit()
                     && !(next.kind == TokKind::Ident && is_qualifier(next.span.text(text)))
                 {
-                    let end = scan_unit(out.buf, i + 1);
+                    let end = scan_unit(out.buf, i + 1, 0);
                     let last = out.buf[end - 1].span;
                     out.push(Token {
                         kind: TokKind::Unit,
@@ -383,9 +386,12 @@ fn adjacent(a: Token, b: Token) -> bool {
 ///
 /// A unit goes on while an operator (`/`, `*`, `·`) is written without spaces
 /// between two unit atoms (or before a parenthesised group of them), or `^` is
-/// written without spaces before an integer. Spaces end the unit, so
-/// `20 ft * 120 ft` is a product of two lengths while `Btu/h` is one unit.
-fn scan_unit(raw: &[Token], start: usize) -> usize {
+/// written without spaces before a number (optionally negative). Spaces end
+/// the unit, so `20 ft * 120 ft` is a product of two lengths while `Btu/h` is
+/// one unit. Groups nest at most [`MAX_UNIT_GROUPS`] deep (`depth` counts them):
+/// deeper parentheses are left as ordinary tokens, which the nesting limit
+/// then governs, so no input can deepen this recursion without bound.
+fn scan_unit(raw: &[Token], start: usize, depth: usize) -> usize {
     let mut end = start + 1;
     loop {
         let prev = raw[end - 1];
@@ -400,7 +406,7 @@ fn scan_unit(raw: &[Token], start: usize) -> usize {
                 if next.kind.starts_unit() {
                     end += 2;
                 } else if next.kind == TokKind::LParen {
-                    match scan_unit_group(raw, end + 1) {
+                    match scan_unit_group(raw, end + 1, depth) {
                         Some(after) => end = after,
                         None => return end,
                     }
@@ -427,12 +433,15 @@ fn scan_unit(raw: &[Token], start: usize) -> usize {
 
 /// A parenthesised unit group `(h·ft²)` starting at the `(` at `open`, written
 /// without spaces. Returns the index after its `)`.
-fn scan_unit_group(raw: &[Token], open: usize) -> Option<usize> {
+fn scan_unit_group(raw: &[Token], open: usize, depth: usize) -> Option<usize> {
+    if depth >= MAX_UNIT_GROUPS {
+        return None;
+    }
     let first = *raw.get(open + 1)?;
     if !first.kind.starts_unit() || !adjacent(raw[open], first) {
         return None;
     }
-    let end = scan_unit(raw, open + 1);
+    let end = scan_unit(raw, open + 1, depth + 1);
     let close = *raw.get(end)?;
     (close.kind == TokKind::RParen && adjacent(raw[end - 1], close)).then_some(end + 1)
 }
@@ -571,6 +580,27 @@ mod tests {
                 (Ident, "draw-through"),
             ]
         );
+    }
+
+    #[test]
+    fn deeply_nested_unit_groups_stop_merging_instead_of_recursing() {
+        // Found by a differential test against the tree-sitter grammar: 300,000
+        // nested groups overflowed the stack of a release build.
+        let mut text = String::from("let a = 1 a");
+        text.push_str(&"/(a".repeat(300_000));
+        text.push_str(&")".repeat(300_000));
+        let lexed = lex(&text);
+        let mut errors = Vec::new();
+        let toks = normalize(&text, &lexed.tokens, &mut errors);
+        assert!(
+            errors
+                .iter()
+                .any(|e| e.kind == SyntaxErrorKind::NestingTooDeep)
+        );
+        assert!(toks.len() < 1_000);
+        // Groups up to the limit still make one unit.
+        let ok = "1 a/(b/(c/(d/(e))))";
+        assert_eq!(kinds(ok).last().map(|t| t.1), Some("a/(b/(c/(d/(e))))"));
     }
 
     #[test]

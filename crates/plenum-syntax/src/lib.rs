@@ -22,7 +22,9 @@ mod values;
 
 pub use ast::*;
 pub use error::{SyntaxError, SyntaxErrorKind};
-pub use lexer::{Lexed, MAX_NESTING, TokKind, Token, lex, normalize, normalize_in_place};
+pub use lexer::{
+    Lexed, MAX_NESTING, MAX_UNIT_GROUPS, TokKind, Token, lex, normalize, normalize_in_place,
+};
 pub use span::{ColumnUnit, LineCol, LineIndex, Span};
 
 /// The result of parsing one file.

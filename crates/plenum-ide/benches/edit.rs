@@ -55,7 +55,10 @@ fn bench(c: &mut Criterion) {
     let mut host = AnalysisHost::new(MemoryFs::new());
     host.set_document(path, text.clone());
     let first = host.analysis().diagnostics(path);
-    assert!(first.is_empty(), "the generated design checks cleanly: {first:?}");
+    assert!(
+        first.is_empty(),
+        "the generated design checks cleanly: {first:?}"
+    );
     eprintln!("generated design: {lines} lines, {} bytes", text.len());
 
     // One edit: a zone's sensible load changes by a digit, back and forth.
@@ -63,7 +66,10 @@ fn bench(c: &mut Criterion) {
     let at = text.find(needle).expect("the generator writes this load");
     let edited = |i: usize| {
         let mut t = text.clone();
-        t.replace_range(at..at + needle.len(), &format!("sensible {}.0 kBtu/h", 6 + i % 3));
+        t.replace_range(
+            at..at + needle.len(),
+            &format!("sensible {}.0 kBtu/h", 6 + i % 3),
+        );
         t
     };
     let mut samples = Vec::new();

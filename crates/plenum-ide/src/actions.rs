@@ -104,7 +104,8 @@ impl Analysis {
                 let in_block = ahu.loc.file == file.id
                     && ahu.loc.span.start <= range.end
                     && range.start <= ahu.loc.span.end;
-                let on_rated = rated.loc.span.start <= range.end && range.start <= rated.loc.span.end;
+                let on_rated =
+                    rated.loc.span.start <= range.end && range.start <= rated.loc.span.end;
                 if !in_block && !on_rated {
                     continue;
                 }

@@ -118,7 +118,10 @@ impl Analysis {
         let word_start = line
             .char_indices()
             .rev()
-            .find(|(_, c)| c.is_whitespace() || matches!(c, ',' | ';' | '{' | '}' | '(' | ')' | '*' | '+' | '='))
+            .find(|(_, c)| {
+                c.is_whitespace()
+                    || matches!(c, ',' | ';' | '{' | '}' | '(' | ')' | '*' | '+' | '=')
+            })
             .map_or(0, |(i, c)| i + c.len_utf8());
         let word_end = text[offset..]
             .char_indices()
@@ -149,7 +152,11 @@ impl Analysis {
         let parse = &ctx.file.parse;
         let at = syntax_at::locate(&parse.file, &parse.comments, offset as u32);
         let mut out = Vec::new();
-        let push = |out: &mut Vec<CompletionItem>, label: &str, kind, detail: Option<String>, doc: Option<String>| {
+        let push = |out: &mut Vec<CompletionItem>,
+                    label: &str,
+                    kind,
+                    detail: Option<String>,
+                    doc: Option<String>| {
             out.push(CompletionItem {
                 label: label.to_string(),
                 kind,
@@ -164,10 +171,28 @@ impl Analysis {
             match before.as_slice() {
                 [] => {
                     for k in BlockKind::TOP_LEVEL {
-                        push(&mut out, k.keyword(), CompletionKind::Keyword, Some("block".into()), Some(k.doc().into()));
+                        push(
+                            &mut out,
+                            k.keyword(),
+                            CompletionKind::Keyword,
+                            Some("block".into()),
+                            Some(k.doc().into()),
+                        );
                     }
-                    push(&mut out, "let", CompletionKind::Keyword, Some("let NAME = VALUE".into()), None);
-                    push(&mut out, "use", CompletionKind::Keyword, Some("use \"PATH\"".into()), None);
+                    push(
+                        &mut out,
+                        "let",
+                        CompletionKind::Keyword,
+                        Some("let NAME = VALUE".into()),
+                        None,
+                    );
+                    push(
+                        &mut out,
+                        "use",
+                        CompletionKind::Keyword,
+                        Some("use \"PATH\"".into()),
+                        None,
+                    );
                 }
                 [kind, .., "like"] => {
                     let want = match BlockKind::from_keyword(kind) {
@@ -177,7 +202,9 @@ impl Analysis {
                     };
                     names(&ctx, want, &[], &mut out, replace);
                 }
-                ["let", _, "=", ..] if !after_number => names(&ctx, SymbolKind::Let, &[], &mut out, replace),
+                ["let", _, "=", ..] if !after_number => {
+                    names(&ctx, SymbolKind::Let, &[], &mut out, replace)
+                }
                 _ => {}
             }
             return out;
@@ -189,14 +216,29 @@ impl Analysis {
             // A key, or a nested block.
             let given = given_keys(block, text);
             for def in keys_of(kind) {
-                if given.iter().any(|g| *g == def.name || def.alternatives.contains(g)) {
+                if given
+                    .iter()
+                    .any(|g| *g == def.name || def.alternatives.contains(g))
+                {
                     continue;
                 }
-                push(&mut out, def.name, CompletionKind::Key, Some(def.value.describe()), Some(key_markdown(def)));
+                push(
+                    &mut out,
+                    def.name,
+                    CompletionKind::Key,
+                    Some(def.value.describe()),
+                    Some(key_markdown(def)),
+                );
             }
             for child in kind.children() {
                 if !block.blocks().any(|b| b.kind.text(text) == child.keyword()) {
-                    push(&mut out, child.keyword(), CompletionKind::Keyword, Some("block".into()), Some(child.doc().into()));
+                    push(
+                        &mut out,
+                        child.keyword(),
+                        CompletionKind::Keyword,
+                        Some("block".into()),
+                        Some(child.doc().into()),
+                    );
                 }
             }
             return out;
@@ -260,7 +302,12 @@ impl Analysis {
             }
             ValueKind::OutdoorAir => {
                 if after_number {
-                    for dim in [Dimension::AIRFLOW, Dimension::RATIO, Dimension::AIRFLOW_PER_PERSON, Dimension::AIRFLOW_PER_AREA] {
+                    for dim in [
+                        Dimension::AIRFLOW,
+                        Dimension::RATIO,
+                        Dimension::AIRFLOW_PER_PERSON,
+                        Dimension::AIRFLOW_PER_AREA,
+                    ] {
                         units(&mut out, dim);
                     }
                 } else if before.len() == 1 {
@@ -279,7 +326,8 @@ impl Analysis {
                     units(&mut out, Dimension::TEMPERATURE);
                     units(&mut out, Dimension::HUMIDITY_RATIO);
                     words(&mut out, &["%rh"]);
-                } else if before.len() > 1 && before.last().is_some_and(|t| Unit::parse(t).is_ok()) {
+                } else if before.len() > 1 && before.last().is_some_and(|t| Unit::parse(t).is_ok())
+                {
                     words(&mut out, &["db", "wb", "dp"]);
                 } else {
                     names(&ctx, SymbolKind::Let, &[], &mut out, replace);
@@ -311,7 +359,9 @@ impl Analysis {
             ValueKind::VentilationEfficiency if before.len() == 1 => {
                 words(&mut out, &["simplified", "calculated"]);
             }
-            ValueKind::Count if !after_number => names(&ctx, SymbolKind::Let, &[], &mut out, replace),
+            ValueKind::Count if !after_number => {
+                names(&ctx, SymbolKind::Let, &[], &mut out, replace)
+            }
             _ => {}
         }
         out
@@ -364,7 +414,13 @@ fn current_property_names(block: &Block, text: &str, offset: u32) -> Vec<String>
     names
 }
 
-fn names(ctx: &FileCtx<'_>, kind: SymbolKind, skip: &[&str], out: &mut Vec<CompletionItem>, replace: Span) {
+fn names(
+    ctx: &FileCtx<'_>,
+    kind: SymbolKind,
+    skip: &[&str],
+    out: &mut Vec<CompletionItem>,
+    replace: Span,
+) {
     let design = &ctx.design.model.design;
     for def in &ctx.design.model.symbols.defs {
         if def.kind != kind || skip.contains(&def.name.as_str()) {

@@ -30,7 +30,8 @@ impl Analysis {
     /// The edits that lay the file out canonically (none when it already is).
     pub fn format(&self, path: &Path) -> Result<Vec<TextEdit>, FormatError> {
         let text = self.text(path).ok_or(FormatError::UnknownFile)?;
-        let edits = plenum_fmt::format_edits(text).map_err(|e| FormatError::Declined(e.to_string()))?;
+        let edits =
+            plenum_fmt::format_edits(text).map_err(|e| FormatError::Declined(e.to_string()))?;
         Ok(edits
             .into_iter()
             .map(|e| TextEdit {

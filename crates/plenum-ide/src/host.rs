@@ -155,7 +155,13 @@ impl AnalysisHost {
         }
         let used: HashSet<&PathBuf> = candidates
             .keys()
-            .flat_map(|c| self.uses.get(c).into_iter().flatten().filter(move |u| *u != c))
+            .flat_map(|c| {
+                self.uses
+                    .get(c)
+                    .into_iter()
+                    .flatten()
+                    .filter(move |u| *u != c)
+            })
             .collect();
         let mut roots: Vec<PathBuf> = candidates
             .keys()
@@ -209,9 +215,7 @@ fn direct_uses(path: &Path, text: &str) -> Vec<PathBuf> {
         .items
         .iter()
         .filter_map(|i| match i {
-            Item::Use(u) if !u.path.value.is_empty() => {
-                Some(normalize(&dir.join(&u.path.value)))
-            }
+            Item::Use(u) if !u.path.value.is_empty() => Some(normalize(&dir.join(&u.path.value))),
             _ => None,
         })
         .collect()
@@ -242,8 +246,13 @@ mod tests {
         );
         let mut host = AnalysisHost::new(fs);
         host.set_disk_files(
-            ["/w/shared/site.plenum", "/w/a.plenum", "/w/b.plenum", "/w/c.plenum"]
-                .map(PathBuf::from),
+            [
+                "/w/shared/site.plenum",
+                "/w/a.plenum",
+                "/w/b.plenum",
+                "/w/c.plenum",
+            ]
+            .map(PathBuf::from),
         );
         let a = host.analysis();
         assert_eq!(

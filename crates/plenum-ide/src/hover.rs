@@ -24,7 +24,7 @@ impl Analysis {
         let parent = at.block().and_then(|b| kind_of(b, text));
         match at.node? {
             Node::BlockKind(b) | Node::BlockName(b) | Node::Header(b) => block_hover(&ctx, b),
-            Node::LikeName(_, name) => symbol_hover(&ctx, name.span),
+            Node::LikeName(name) => symbol_hover(&ctx, name.span),
             Node::Key(p) => {
                 let block = parent?;
                 let def = key_def(block, p.key.text(text))?;
@@ -66,8 +66,8 @@ impl Analysis {
                 markdown,
             }),
             Node::LetName(l) => symbol_hover(&ctx, l.name.span),
-            Node::LetValueName(_, name) => symbol_hover(&ctx, name.span),
-            Node::LetNumber(_, n) => literal(text, n, ctx.design.system).map(|markdown| Hover {
+            Node::LetValueName(name) => symbol_hover(&ctx, name.span),
+            Node::LetNumber(n) => literal(text, n, ctx.design.system).map(|markdown| Hover {
                 span: n.span(),
                 markdown,
             }),
@@ -195,7 +195,12 @@ fn literal(text: &str, n: &Number, system: UnitSystem) -> Option<String> {
 
 /// A key's documentation from the key table.
 pub(crate) fn key_markdown(def: &KeyDef) -> String {
-    let mut s = format!("**{}** (in `{}`)\n\n{}\n\n", def.name, def.block.keyword(), def.doc);
+    let mut s = format!(
+        "**{}** (in `{}`)\n\n{}\n\n",
+        def.name,
+        def.block.keyword(),
+        def.doc
+    );
     let _ = writeln!(s, "- **Value**: {}", def.value.describe());
     if let ValueKind::Quantity(dim) = def.value {
         let units: Vec<String> = [UnitSystem::Ip, UnitSystem::Si]

@@ -34,7 +34,7 @@ impl Analysis {
             .filter_map(|i| match i {
                 Item::Use(u) if !u.path.value.is_empty() => {
                     let target = resolve(&ctx.file.path, &u.path.value);
-                    ctx.design.contains(&target).then(|| DocumentLink {
+                    ctx.design.contains(&target).then_some(DocumentLink {
                         span: u.path.span,
                         target,
                     })

@@ -295,7 +295,12 @@ impl AhuSummary {
 }
 
 /// A zone's figures: design airflow, 62.1 ventilation and resulting RH.
-pub fn zone_markdown(design: &Design, eval: &Evaluation, zone: &ZoneResult, system: UnitSystem) -> String {
+pub fn zone_markdown(
+    design: &Design,
+    eval: &Evaluation,
+    zone: &ZoneResult,
+    system: UnitSystem,
+) -> String {
     let z = design.zone(zone.zone);
     let title = match z.and_then(|z| z.label.as_ref()) {
         Some(l) => format!("zone {} \"{l}\"", zone.name),

@@ -151,8 +151,16 @@ impl Analysis {
                     continue;
                 };
                 let detail = match def.kind {
-                    SymbolKind::Zone => d.model.design.zone_by_name(&def.name).and_then(|z| z.label.clone()),
-                    SymbolKind::Ahu => d.model.design.ahu_by_name(&def.name).and_then(|a| a.label.clone()),
+                    SymbolKind::Zone => d
+                        .model
+                        .design
+                        .zone_by_name(&def.name)
+                        .and_then(|z| z.label.clone()),
+                    SymbolKind::Ahu => d
+                        .model
+                        .design
+                        .ahu_by_name(&def.name)
+                        .and_then(|a| a.label.clone()),
                     SymbolKind::Let => None,
                 };
                 let s = WorkspaceSymbol {

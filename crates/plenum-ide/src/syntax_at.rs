@@ -16,7 +16,7 @@ pub(crate) enum Node<'a> {
     /// Elsewhere in a block header (the label, the braces).
     Header(&'a Block),
     /// The name after `like`.
-    LikeName(&'a Block, Name),
+    LikeName(Name),
     /// A property's key.
     Key(&'a Property),
     /// A name inside a property's value.
@@ -28,9 +28,9 @@ pub(crate) enum Node<'a> {
     /// The name a `let` defines.
     LetName(&'a Let),
     /// A name inside a `let` value.
-    LetValueName(&'a Let, Name),
+    LetValueName(Name),
     /// A number literal inside a `let` value.
-    LetNumber(&'a Let, &'a Number),
+    LetNumber(&'a Number),
     /// A `use` item.
     Use(&'a Use),
     /// A comment.
@@ -93,8 +93,8 @@ pub(crate) fn locate<'a>(file: &'a SourceFile, comments: &[Span], offset: u32) -
                     Node::LetName(l)
                 } else {
                     match value_node(&l.value, offset) {
-                        Some(ValueHit::Name(n)) => Node::LetValueName(l, n),
-                        Some(ValueHit::Number(n)) => Node::LetNumber(l, n),
+                        Some(ValueHit::Name(n)) => Node::LetValueName(n),
+                        Some(ValueHit::Number(n)) => Node::LetNumber(n),
                         None => return out,
                     }
                 });
@@ -140,7 +140,7 @@ fn block_at<'a>(b: &'a Block, offset: u32, out: &mut Located<'a>) {
     if let Some(l) = &b.like
         && l.name.span.touches(offset)
     {
-        out.node = Some(Node::LikeName(b, l.name));
+        out.node = Some(Node::LikeName(l.name));
         return;
     }
     if offset < b.body.open.end {
@@ -154,7 +154,8 @@ fn block_at<'a>(b: &'a Block, offset: u32, out: &mut Located<'a>) {
     }
     out.blocks.push(b);
     for e in &b.body.entries {
-        if !e.span().touches(offset) && !matches!(e, Entry::Block(inner) if body_holds_open(inner, offset))
+        if !e.span().touches(offset)
+            && !matches!(e, Entry::Block(inner) if body_holds_open(inner, offset))
         {
             continue;
         }

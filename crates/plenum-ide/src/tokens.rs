@@ -36,120 +36,128 @@ pub struct SemanticToken {
     pub definition: bool,
 }
 
+struct Collector<'a> {
+    syms: &'a plenum_model::Symbols,
+    file: plenum_model::FileId,
+    out: Vec<SemanticToken>,
+}
+
+impl Collector<'_> {
+    fn push(&mut self, span: Span, kind: TokenKind, definition: bool) {
+        if !span.is_empty() {
+            self.out.push(SemanticToken {
+                span,
+                kind,
+                definition,
+            });
+        }
+    }
+
+    fn symbol_kind(&self, span: Span) -> Option<(TokenKind, bool)> {
+        let as_token = |k: SymbolKind| match k {
+            SymbolKind::Zone => TokenKind::Zone,
+            SymbolKind::Ahu => TokenKind::Ahu,
+            SymbolKind::Let => TokenKind::Let,
+        };
+        let syms = self.syms;
+        if let Some(d) = syms
+            .defs
+            .iter()
+            .find(|d| d.name_loc.file == self.file && d.name_loc.span == span)
+        {
+            return Some((as_token(d.kind), true));
+        }
+        syms.refs
+            .iter()
+            .find(|r| r.loc.file == self.file && r.loc.span == span)
+            .and_then(|r| syms.defs.get(r.def))
+            .map(|d| (as_token(d.kind), false))
+    }
+
+    fn name(&mut self, span: Span, otherwise: Option<TokenKind>) {
+        match (self.symbol_kind(span), otherwise) {
+            (Some((k, d)), _) => self.push(span, k, d),
+            (None, Some(k)) => self.push(span, k, false),
+            (None, None) => {}
+        }
+    }
+
+    fn value(&mut self, v: &Value) {
+        let mut names = Vec::new();
+        value_names(v, &mut names);
+        for n in names {
+            self.name(n.span, Some(TokenKind::Word));
+        }
+        let mut numbers = Vec::new();
+        value_numbers(v, &mut numbers);
+        for n in numbers {
+            if let Some(u) = n.unit {
+                self.push(u.span, TokenKind::Unit, false);
+            }
+        }
+        for el in v.elements.iter() {
+            if let Some(q) = el.qualifier {
+                self.push(q.span, TokenKind::Word, false);
+            }
+            if let Some(r) = &el.range_end {
+                self.push(r.keyword, TokenKind::Keyword, false);
+                if let Some(q) = r.qualifier {
+                    self.push(q.span, TokenKind::Word, false);
+                }
+            }
+        }
+        for w in &v.with {
+            self.push(w.keyword, TokenKind::Keyword, false);
+            self.push(w.key.span, TokenKind::Key, false);
+        }
+    }
+
+    fn block(&mut self, b: &Block) {
+        self.push(b.kind.span, TokenKind::Keyword, false);
+        if let Some(n) = b.name {
+            self.name(n.span, None);
+        }
+        if let Some(l) = &b.like {
+            self.push(l.keyword, TokenKind::Keyword, false);
+            self.name(l.name.span, None);
+        }
+        for e in &b.body.entries {
+            match e {
+                Entry::Property(p) => {
+                    self.push(p.key.span, TokenKind::Key, false);
+                    self.value(&p.value);
+                }
+                Entry::Block(inner) => self.block(inner),
+                Entry::Error(_) => {}
+            }
+        }
+    }
+}
+
 impl Analysis {
     /// The semantic tokens of a file, sorted and non-overlapping.
     pub fn semantic_tokens(&self, path: &Path) -> Vec<SemanticToken> {
         let Some(ctx) = self.ctx(path) else {
             return Vec::new();
         };
-        let text = ctx.text();
-        let syms = &ctx.design.model.symbols;
-        let id = ctx.id();
-        let symbol_kind = |span: Span| -> Option<(TokenKind, bool)> {
-            let as_token = |k: SymbolKind| match k {
-                SymbolKind::Zone => TokenKind::Zone,
-                SymbolKind::Ahu => TokenKind::Ahu,
-                SymbolKind::Let => TokenKind::Let,
-            };
-            if let Some(d) = syms
-                .defs
-                .iter()
-                .find(|d| d.name_loc.file == id && d.name_loc.span == span)
-            {
-                return Some((as_token(d.kind), true));
-            }
-            syms.refs
-                .iter()
-                .find(|r| r.loc.file == id && r.loc.span == span)
-                .and_then(|r| syms.defs.get(r.def))
-                .map(|d| (as_token(d.kind), false))
+        let mut c = Collector {
+            syms: &ctx.design.model.symbols,
+            file: ctx.id(),
+            out: Vec::new(),
         };
-        let mut out: Vec<SemanticToken> = Vec::new();
-        let mut push = |span: Span, kind: TokenKind, definition: bool| {
-            if !span.is_empty() {
-                out.push(SemanticToken {
-                    span,
-                    kind,
-                    definition,
-                });
-            }
-        };
-        let mut value = |v: &Value, push: &mut dyn FnMut(Span, TokenKind, bool)| {
-            let mut names = Vec::new();
-            value_names(v, &mut names);
-            for n in names {
-                match symbol_kind(n.span) {
-                    Some((k, d)) => push(n.span, k, d),
-                    None => push(n.span, TokenKind::Word, false),
-                }
-            }
-            let mut numbers = Vec::new();
-            value_numbers(v, &mut numbers);
-            for n in numbers {
-                if let Some(u) = n.unit {
-                    push(u.span, TokenKind::Unit, false);
-                }
-            }
-            for el in v.elements.iter() {
-                if let Some(q) = el.qualifier {
-                    push(q.span, TokenKind::Word, false);
-                }
-                if let Some(r) = &el.range_end {
-                    push(r.keyword, TokenKind::Keyword, false);
-                    if let Some(q) = r.qualifier {
-                        push(q.span, TokenKind::Word, false);
-                    }
-                }
-            }
-            for w in &v.with {
-                push(w.keyword, TokenKind::Keyword, false);
-                push(w.key.span, TokenKind::Key, false);
-            }
-        };
-        fn block(
-            b: &Block,
-            push: &mut dyn FnMut(Span, TokenKind, bool),
-            value: &mut dyn FnMut(&Value, &mut dyn FnMut(Span, TokenKind, bool)),
-            symbol_kind: &dyn Fn(Span) -> Option<(TokenKind, bool)>,
-        ) {
-            push(b.kind.span, TokenKind::Keyword, false);
-            if let Some(n) = b.name
-                && let Some((k, d)) = symbol_kind(n.span)
-            {
-                push(n.span, k, d);
-            }
-            if let Some(l) = &b.like {
-                push(l.keyword, TokenKind::Keyword, false);
-                if let Some((k, d)) = symbol_kind(l.name.span) {
-                    push(l.name.span, k, d);
-                }
-            }
-            for e in &b.body.entries {
-                match e {
-                    Entry::Property(p) => {
-                        push(p.key.span, TokenKind::Key, false);
-                        value(&p.value, push);
-                    }
-                    Entry::Block(inner) => block(inner, push, value, symbol_kind),
-                    Entry::Error(_) => {}
-                }
-            }
-        }
         for item in &ctx.file.parse.file.items {
             match item {
-                Item::Block(b) => block(b, &mut push, &mut value, &symbol_kind),
+                Item::Block(b) => c.block(b),
                 Item::Let(l) => {
-                    push(l.keyword, TokenKind::Keyword, false);
-                    if let Some((k, d)) = symbol_kind(l.name.span) {
-                        push(l.name.span, k, d);
-                    }
-                    value(&l.value, &mut push);
+                    c.push(l.keyword, TokenKind::Keyword, false);
+                    c.name(l.name.span, None);
+                    c.value(&l.value);
                 }
-                Item::Use(u) => push(u.keyword, TokenKind::Keyword, false),
+                Item::Use(u) => c.push(u.keyword, TokenKind::Keyword, false),
                 Item::Error(_) => {}
             }
         }
-        let _ = text;
+        let mut out = c.out;
         out.sort();
         out.dedup_by(|b, a| b.span.start < a.span.end);
         out

@@ -137,6 +137,17 @@ impl Analysis {
         out
     }
 
+    /// Every file of every design that reads `path` (`path` included).
+    pub fn related_files(&self, path: &Path) -> Vec<PathBuf> {
+        let mut out: Vec<PathBuf> = self
+            .designs_with(path)
+            .flat_map(|d| d.model.files.iter().map(|f| f.path.clone()))
+            .collect();
+        out.sort();
+        out.dedup();
+        out
+    }
+
     /// The text of a file as the analysis read it.
     pub fn text(&self, path: &Path) -> Option<&str> {
         self.ctx(path).map(|c| c.text())

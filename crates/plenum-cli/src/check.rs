@@ -1,188 +1,169 @@
-//! `plenum check`
+//! `plenum check`: every design under the given paths, through the
+//! checker's project runner ([`plenum_checks::check_files`]).
+//!
+//! Output formats: `text` (miette snippets grouped by file, a summary line
+//! and the caution), `json` (`{"diagnostics": [...]}`, plus `"baseline"`
+//! with `--baseline`), `sarif` (SARIF 2.1.0), `github` (workflow-command
+//! annotations) and `markdown` (a pull-request comment).
+//!
+//! With `--baseline REV` the designs are also checked as of git revision
+//! REV and every air handler's required and rated capacity is compared. The
+//! comparison is part of the text, JSON and Markdown outputs. With
+//! `--format github` it is appended as Markdown to the job summary file
+//! named by `GITHUB_STEP_SUMMARY` when that is set, else printed to stderr;
+//! with `--format sarif` it is printed to stderr.
+//!
+//! Exit status: 0 without errors, 1 with errors (or warnings with
+//! `--deny warnings`), 2 for a usage error, unreadable input or a baseline
+//! that cannot be read.
 
-use std::collections::{BTreeMap, HashSet};
-use std::path::{Path, PathBuf};
+use std::io::Write;
+use std::path::PathBuf;
 use std::process::ExitCode;
 
-use plenum_model::{Model, ModelDiagnostic, RealFs};
-use plenum_syntax::{Item, Span, SyntaxError, SyntaxErrorKind};
+use clap::ValueEnum;
+use plenum_checks::{Severity, check_files};
+use plenum_model::RealFs;
+use serde::Serialize;
 
-use crate::Format;
-use crate::diag::{Diag, Severity};
-use crate::files::{self, Loaded};
-use crate::render::{self, FileReport};
+use crate::baseline::{self, Comparison};
+use crate::render::{self, CAUTION};
+use crate::{files, github, sarif};
 
-/// Diagnostics shown per file at most; the rest are counted in one line.
-const MAX_SHOWN: usize = 200;
+#[derive(clap::Args, Debug)]
+pub struct CheckArgs {
+    /// Files or folders to check (folders are searched for `*.plenum`,
+    /// respecting `.gitignore`). Default: the current folder.
+    pub paths: Vec<PathBuf>,
+    /// Output format.
+    #[arg(long, value_enum, default_value_t = Format::Text)]
+    pub format: Format,
+    /// Fail (exit 1) on these too: `--deny warnings` counts warnings as errors.
+    #[arg(long, value_enum, value_name = "WHAT")]
+    pub deny: Vec<Deny>,
+    /// Also check the designs as of git revision REV and compare every air
+    /// handler's required and rated capacity then and now.
+    #[arg(long, value_name = "REV")]
+    pub baseline: Option<String>,
+}
 
-pub fn run(paths: &[PathBuf], format: Format) -> Result<ExitCode, String> {
-    let files = files::discover(paths)?;
-    let mut unreadable = false;
-    let mut texts: Vec<(PathBuf, String)> = Vec::new();
-    let mut reports: BTreeMap<PathBuf, FileReport> = BTreeMap::new();
-    for path in &files {
-        match files::load(path) {
-            Ok(Loaded::Text(text)) => texts.push((plenum_model::fs::normalize(path), text)),
-            Ok(Loaded::NotUtf8 { prefix, offset }) => {
-                reports.insert(path.clone(), not_utf8(path, prefix, offset));
-            }
-            Err(message) => {
-                eprintln!("error: {message}");
-                unreadable = true;
-            }
-        }
+#[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
+pub enum Format {
+    /// Human-readable diagnostics with source snippets.
+    Text,
+    /// Machine-readable JSON.
+    Json,
+    /// SARIF 2.1.0, for code-scanning tools.
+    Sarif,
+    /// GitHub Actions workflow-command annotations.
+    Github,
+    /// Markdown, for a pull-request comment.
+    Markdown,
+}
+
+#[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
+pub enum Deny {
+    /// Count warnings as errors for the exit status.
+    Warnings,
+}
+
+#[derive(Serialize)]
+struct JsonOutput {
+    diagnostics: Vec<render::JsonDiagnostic>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    baseline: Option<Comparison>,
+}
+
+pub fn run(args: &CheckArgs) -> Result<ExitCode, String> {
+    let paths = files::discover(&args.paths)?;
+    let project = check_files(&RealFs, &paths);
+    for (path, reason) in &project.unreadable {
+        eprintln!("error: cannot read `{}`: {reason}", path.display());
     }
-    // A file that another checked file `use`s is checked as part of that
-    // design, not as a design of its own.
-    let used = used_files(&texts);
-    let mut syntax_done: HashSet<PathBuf> = HashSet::new();
-    let mut seen: HashSet<(PathBuf, &'static str, Span, String)> = HashSet::new();
-    for (path, text) in &texts {
-        if used.contains(path) {
-            continue;
-        }
-        let model = Model::build(&RealFs, path, text.clone());
-        for f in &model.files {
-            let report = reports.entry(f.path.clone()).or_insert_with(|| FileReport {
-                name: f.path.display().to_string(),
-                text: f.text.clone(),
-                diags: Vec::new(),
-            });
-            if syntax_done.insert(f.path.clone()) {
-                report.diags.extend(f.parse.errors.iter().map(Diag::from));
-            }
-        }
-        for d in &model.diagnostics {
-            let Some(file) = model.file(d.loc.file) else {
-                continue;
-            };
-            let diag = from_model(&model, d);
-            if !seen.insert((
-                file.path.clone(),
-                diag.code,
-                diag.span,
-                diag.message.clone(),
-            )) {
-                continue;
-            }
-            if let Some(report) = reports.get_mut(&file.path) {
-                report.diags.push(diag);
-            }
-        }
-    }
-    let mut reports: Vec<FileReport> = reports.into_values().collect();
-    for r in &mut reports {
-        r.diags.sort_by_key(|d| (d.span.start, d.span.end));
-        cap(&mut r.diags, r.text.len());
-    }
-    match format {
+    let comparison = match &args.baseline {
+        Some(rev) => Some(baseline::compare(rev, &args.paths, &project)?),
+        None => None,
+    };
+    let mut out = String::new();
+    match args.format {
         Format::Text => {
-            let mut out = String::new();
-            for r in &reports {
-                out.push_str(&render::text(r));
+            out.push_str(&render::project_text(&project));
+            if let Some(c) = &comparison {
+                out.push_str(&baseline::text(c));
+                out.push('\n');
             }
-            print!("{out}");
-            eprintln!("{}", render::summary(&reports));
+            out.push_str(&render::summary(&project));
+            out.push_str("\n\n");
+            out.push_str(CAUTION);
+            out.push('\n');
         }
-        Format::Json => println!("{}", render::json(&reports)),
+        Format::Json => {
+            let value = JsonOutput {
+                diagnostics: render::json_diagnostics(&project),
+                baseline: comparison.clone(),
+            };
+            out =
+                serde_json::to_string_pretty(&value).map_err(|e| format!("internal error: {e}"))?;
+            out.push('\n');
+        }
+        Format::Sarif => {
+            out = sarif::sarif(&project);
+            out.push('\n');
+            if let Some(c) = &comparison {
+                eprint!("{}", baseline::text(c));
+            }
+        }
+        Format::Github => {
+            out = github::annotations(&project);
+            if let Some(c) = &comparison {
+                match std::env::var_os("GITHUB_STEP_SUMMARY") {
+                    Some(file) if !file.is_empty() => {
+                        let mut f = std::fs::OpenOptions::new()
+                            .create(true)
+                            .append(true)
+                            .open(&file)
+                            .map_err(|e| {
+                                format!(
+                                    "cannot write the job summary `{}`: {e}",
+                                    file.to_string_lossy()
+                                )
+                            })?;
+                        let text = format!(
+                            "{}\n{}",
+                            baseline::markdown(c),
+                            baseline::caution_markdown()
+                        );
+                        f.write_all(text.as_bytes()).map_err(|e| {
+                            format!(
+                                "cannot write the job summary `{}`: {e}",
+                                file.to_string_lossy()
+                            )
+                        })?;
+                    }
+                    _ => eprint!("{}", baseline::text(c)),
+                }
+            }
+        }
+        Format::Markdown => {
+            out.push_str("## Plenum check\n\n");
+            if let Some(c) = &comparison {
+                out.push_str(&baseline::markdown(c));
+                out.push('\n');
+            }
+            out.push_str(&render::markdown_diagnostics(&project));
+            out.push('\n');
+            out.push_str(&baseline::caution_markdown());
+        }
     }
-    let errors = reports
-        .iter()
-        .flat_map(|r| &r.diags)
-        .any(|d| d.severity == Severity::Error);
-    Ok(if unreadable {
+    print!("{out}");
+    let errors = project.count(Severity::Error);
+    let warnings = project.count(Severity::Warning);
+    let deny_warnings = args.deny.contains(&Deny::Warnings);
+    Ok(if !project.unreadable.is_empty() {
         ExitCode::from(2)
-    } else if errors {
+    } else if errors > 0 || (deny_warnings && warnings > 0) {
         ExitCode::from(1)
     } else {
         ExitCode::SUCCESS
     })
-}
-
-/// The files that some file of the set names in a `use`.
-fn used_files(texts: &[(PathBuf, String)]) -> HashSet<PathBuf> {
-    let mut used = HashSet::new();
-    for (path, text) in texts {
-        let dir = path.parent().unwrap_or(Path::new(""));
-        for item in &plenum_syntax::parse(text).file.items {
-            if let Item::Use(u) = item {
-                used.insert(plenum_model::fs::normalize(&dir.join(&u.path.value)));
-            }
-        }
-    }
-    used
-}
-
-fn from_model(model: &Model, d: &ModelDiagnostic) -> Diag {
-    let mut related = Vec::new();
-    let mut notes = Vec::new();
-    for (loc, text) in &d.related {
-        if loc.file == d.loc.file {
-            related.push((loc.span, text.clone()));
-        } else if let Some(f) = model.file(loc.file) {
-            let lc = f
-                .lines
-                .line_col(loc.span.start, plenum_syntax::ColumnUnit::Char);
-            notes.push(format!(
-                "{text}: {}:{}:{}",
-                f.path.display(),
-                lc.line + 1,
-                lc.col + 1
-            ));
-        }
-    }
-    let help = match (&d.help, notes.is_empty()) {
-        (Some(h), true) => Some(h.clone()),
-        (Some(h), false) => Some(format!("{h}\n{}", notes.join("\n"))),
-        (None, false) => Some(notes.join("\n")),
-        (None, true) => None,
-    };
-    Diag {
-        code: d.code.code(),
-        severity: match d.severity {
-            plenum_model::Severity::Error => Severity::Error,
-            plenum_model::Severity::Warning => Severity::Warning,
-            plenum_model::Severity::Info => Severity::Info,
-        },
-        message: d.message.clone(),
-        span: d.loc.span,
-        label: d.label.clone(),
-        related,
-        help,
-    }
-}
-
-fn not_utf8(path: &Path, prefix: String, offset: usize) -> FileReport {
-    let at = u32::try_from(offset).unwrap_or(u32::MAX);
-    let err = SyntaxError::new(
-        SyntaxErrorKind::InvalidCharacter,
-        Span::empty(at),
-        "file is not valid UTF-8".to_string(),
-    )
-    .with_label("the first invalid byte is here")
-    .with_help("save the file as UTF-8");
-    let mut d = Diag::from(&err);
-    d.code = "invalid-utf8";
-    FileReport {
-        name: path.display().to_string(),
-        text: prefix,
-        diags: vec![d],
-    }
-}
-
-fn cap(diags: &mut Vec<Diag>, len: usize) {
-    if diags.len() > MAX_SHOWN {
-        let hidden = diags.len() - MAX_SHOWN;
-        diags.truncate(MAX_SHOWN);
-        let end = u32::try_from(len).unwrap_or(u32::MAX);
-        diags.push(Diag {
-            code: "too-many-errors",
-            severity: Severity::Error,
-            message: format!("{hidden} more errors in this file are not shown"),
-            span: Span::empty(end),
-            label: None,
-            related: Vec::new(),
-            help: Some("fix the errors above and check again".to_string()),
-        });
-    }
 }

@@ -1,6 +1,8 @@
-//! The diagnostics the CLI prints, independent of their origin.
+//! The diagnostic the CLI's text renderer draws (the checker's
+//! [`plenum_checks::Diagnostic`] is converted into it; `plenum air` builds
+//! it directly for a state given on the command line).
 
-use plenum_syntax::{Span, SyntaxError};
+use plenum_syntax::Span;
 
 #[derive(Clone, Copy, Debug, PartialEq, Eq, PartialOrd, Ord)]
 pub enum Severity {
@@ -19,6 +21,16 @@ impl Severity {
     }
 }
 
+impl From<plenum_checks::Severity> for Severity {
+    fn from(s: plenum_checks::Severity) -> Severity {
+        match s {
+            plenum_checks::Severity::Error => Severity::Error,
+            plenum_checks::Severity::Warning => Severity::Warning,
+            plenum_checks::Severity::Info => Severity::Info,
+        }
+    }
+}
+
 /// One finding, located in one file.
 #[derive(Clone, Debug)]
 pub struct Diag {
@@ -29,18 +41,4 @@ pub struct Diag {
     pub label: Option<String>,
     pub related: Vec<(Span, String)>,
     pub help: Option<String>,
-}
-
-impl From<&SyntaxError> for Diag {
-    fn from(e: &SyntaxError) -> Diag {
-        Diag {
-            code: e.kind.code(),
-            severity: Severity::Error,
-            message: e.message.clone(),
-            span: e.span,
-            label: e.label.clone(),
-            related: e.related.clone(),
-            help: e.help.clone(),
-        }
-    }
 }

@@ -57,9 +57,8 @@ pub fn io_reason(e: &std::io::Error) -> String {
 /// A file's text, or where its UTF-8 broke.
 pub enum Loaded {
     Text(String),
-    /// Not UTF-8: the valid prefix and the offset of the first bad byte.
+    /// Not UTF-8: the offset of the first bad byte.
     NotUtf8 {
-        prefix: String,
         offset: usize,
     },
 }
@@ -69,11 +68,8 @@ pub fn load(path: &Path) -> Result<Loaded, String> {
         .map_err(|e| format!("cannot read `{}`: {}", path.display(), io_reason(&e)))?;
     match String::from_utf8(bytes) {
         Ok(text) => Ok(Loaded::Text(text)),
-        Err(e) => {
-            let offset = e.utf8_error().valid_up_to();
-            let bytes = e.into_bytes();
-            let prefix = String::from_utf8_lossy(&bytes[..offset]).into_owned();
-            Ok(Loaded::NotUtf8 { prefix, offset })
-        }
+        Err(e) => Ok(Loaded::NotUtf8 {
+            offset: e.utf8_error().valid_up_to(),
+        }),
     }
 }

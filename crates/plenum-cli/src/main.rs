@@ -1,16 +1,20 @@
 //! `plenum`: the command-line front end.
 //!
-//! Exit codes: 0 when no errors were found, 1 when errors were found, 2 for a
-//! usage error, unreadable input or an internal error.
+//! Exit codes: 0 when no errors were found, 1 when errors were found (or
+//! warnings, with `plenum check --deny warnings`), 2 for a usage error,
+//! unreadable input or an internal error.
 
 mod air;
+mod baseline;
 mod check;
-mod fmt;
 mod diag;
+mod explain;
 mod files;
+mod fmt;
+mod github;
 mod render;
+mod sarif;
 
-use std::path::PathBuf;
 use std::process::ExitCode;
 
 use clap::{Parser, Subcommand, ValueEnum};
@@ -30,21 +34,13 @@ struct Cli {
 #[derive(Subcommand, Debug)]
 enum Command {
     /// Check design files and report every problem found.
-    Check(CheckArgs),
+    Check(check::CheckArgs),
+    /// Print the documentation of a check code, or list every code.
+    Explain(explain::ExplainArgs),
     /// Show the properties of one moist-air state.
     Air(air::AirArgs),
     /// Rewrite design files in the canonical layout.
     Fmt(fmt::FmtArgs),
-}
-
-#[derive(clap::Args, Debug)]
-struct CheckArgs {
-    /// Files or folders to check (folders are searched for `*.plenum`,
-    /// respecting `.gitignore`). Default: the current folder.
-    paths: Vec<PathBuf>,
-    /// Output format.
-    #[arg(long, value_enum, default_value_t = Format::Text)]
-    format: Format,
 }
 
 /// The unit system of printed values.
@@ -65,14 +61,6 @@ impl Units {
     }
 }
 
-#[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
-enum Format {
-    /// Human-readable diagnostics with source snippets.
-    Text,
-    /// Machine-readable JSON.
-    Json,
-}
-
 fn main() -> ExitCode {
     let cli = match Cli::try_parse() {
         Ok(cli) => cli,
@@ -83,7 +71,8 @@ fn main() -> ExitCode {
         }
     };
     let result = match cli.command {
-        Command::Check(args) => check::run(&args.paths, args.format),
+        Command::Check(args) => check::run(&args),
+        Command::Explain(args) => explain::run(&args),
         Command::Air(args) => air::run(&args),
         Command::Fmt(args) => fmt::run(&args),
     };

@@ -1,12 +1,21 @@
-//! Rendering diagnostics: miette text for people, JSON for tools.
+//! Rendering diagnostics: miette text for people, JSON, SARIF and GitHub
+//! annotations for tools, Markdown for pull-request comments.
 
 use std::io::IsTerminal;
+use std::path::Path;
 
 use miette::{GraphicalReportHandler, GraphicalTheme, LabeledSpan, MietteDiagnostic, NamedSource};
+use plenum_checks::{Diagnostic, Project};
 use plenum_syntax::{ColumnUnit, LineIndex, Span};
 use serde::Serialize;
 
 use crate::diag::{Diag, Severity};
+
+/// The caution every text and Markdown output ends with (methods.md §0).
+pub const CAUTION: &str = "Caution: Plenum is a design aid. The inputs are your responsibility; the results must be reviewed by a qualified engineer (licensed where required), and the codes in force where the building stands govern.";
+
+/// Diagnostics shown per file in text output at most; the rest are counted.
+pub const MAX_SHOWN: usize = 200;
 
 /// Diagnostics of one file, with the text they point into.
 pub struct FileReport {
@@ -22,7 +31,9 @@ fn miette_span(span: Span, len: usize) -> miette::SourceSpan {
 }
 
 fn handler() -> GraphicalReportHandler {
-    let color = std::io::stderr().is_terminal() && std::env::var_os("NO_COLOR").is_none();
+    let color = std::io::stdout().is_terminal()
+        && std::io::stderr().is_terminal()
+        && std::env::var_os("NO_COLOR").is_none();
     let theme = if color {
         GraphicalTheme::unicode()
     } else {
@@ -75,6 +86,124 @@ pub fn text(report: &FileReport) -> String {
     out
 }
 
+/// The name a file is shown by: its path with forward slashes.
+pub fn display_path(path: &Path) -> String {
+    path.to_string_lossy().replace('\\', "/")
+}
+
+/// One-based line and column (in characters) of the start and end of `span`.
+pub fn positions(index: &LineIndex, span: Span) -> (u32, u32, u32, u32) {
+    let s = index.line_col(span.start, ColumnUnit::Char);
+    let e = index.line_col(span.end, ColumnUnit::Char);
+    (s.line + 1, s.col + 1, e.line + 1, e.col + 1)
+}
+
+/// A checker diagnostic as the text renderer shows it: labels in other
+/// files become notes under the help.
+fn to_diag(project: &Project, d: &Diagnostic) -> Diag {
+    let mut related = Vec::new();
+    let mut notes = Vec::new();
+    for l in &d.labels {
+        if l.loc.file == d.loc.file {
+            related.push((l.loc.span, l.text.clone()));
+        } else if let Some(f) = project.file(&l.loc.file) {
+            let (line, col, _, _) = positions(&f.lines, l.loc.span);
+            notes.push(format!(
+                "{}: {}:{line}:{col}",
+                l.text,
+                display_path(&l.loc.file)
+            ));
+        }
+    }
+    let help = match (&d.help, notes.is_empty()) {
+        (Some(h), true) => Some(h.clone()),
+        (Some(h), false) => Some(format!("{h}\n{}", notes.join("\n"))),
+        (None, false) => Some(notes.join("\n")),
+        (None, true) => None,
+    };
+    Diag {
+        code: d.code,
+        severity: Severity::from(d.severity),
+        message: d.message.clone(),
+        span: d.loc.span,
+        label: d.label.clone(),
+        related,
+        help,
+    }
+}
+
+/// Every file's diagnostics, grouped by file: errors and warnings with
+/// their source snippets, then the file's infos (assumptions and notes) one
+/// line each, so that a design with many defaults stays readable.
+pub fn project_text(project: &Project) -> String {
+    let mut out = String::new();
+    for f in &project.files {
+        if f.diagnostics.is_empty() {
+            continue;
+        }
+        let name = display_path(&f.path);
+        let (infos, shown): (Vec<&Diagnostic>, Vec<&Diagnostic>) = f
+            .diagnostics
+            .iter()
+            .partition(|d| d.severity == plenum_checks::Severity::Info);
+        let hidden = shown.len().saturating_sub(MAX_SHOWN);
+        let report = FileReport {
+            name: name.clone(),
+            text: f.text.clone(),
+            diags: shown
+                .iter()
+                .take(MAX_SHOWN)
+                .map(|d| to_diag(project, d))
+                .collect(),
+        };
+        out.push_str(&text(&report));
+        if hidden > 0 {
+            out.push_str(&format!(
+                "… {hidden} more errors and warnings in {name} are not shown (the JSON and SARIF outputs have them all)\n\n"
+            ));
+        }
+        if !infos.is_empty() {
+            for d in infos.iter().take(MAX_SHOWN) {
+                let (line, col, _, _) = positions(&f.lines, d.loc.span);
+                out.push_str(&format!(
+                    "{name}:{line}:{col}: info[{}]: {}\n",
+                    d.code, d.message
+                ));
+            }
+            if infos.len() > MAX_SHOWN {
+                out.push_str(&format!(
+                    "… {} more infos in {name} are not shown\n",
+                    infos.len() - MAX_SHOWN
+                ));
+            }
+            out.push('\n');
+        }
+    }
+    out
+}
+
+fn plural(n: usize, word: &str) -> String {
+    if n == 1 {
+        format!("{n} {word}")
+    } else {
+        format!("{n} {word}s")
+    }
+}
+
+/// `3 errors, 1 warning, 0 infos in 2 files`
+pub fn summary(project: &Project) -> String {
+    let e = project.count(plenum_checks::Severity::Error);
+    let w = project.count(plenum_checks::Severity::Warning);
+    let i = project.count(plenum_checks::Severity::Info);
+    let files = plural(project.files.len(), "file");
+    format!(
+        "{}, {}, {} in {files}",
+        plural(e, "error"),
+        plural(w, "warning"),
+        plural(i, "info")
+    )
+}
+
 #[derive(Serialize)]
 pub struct JsonDiagnostic {
     pub code: &'static str,
@@ -89,66 +218,49 @@ pub struct JsonDiagnostic {
     pub help: Option<String>,
 }
 
-#[derive(Serialize)]
-pub struct JsonOutput {
-    pub diagnostics: Vec<JsonDiagnostic>,
-}
-
-/// One-based line and column (in characters) of the start and end of `span`.
-pub fn positions(index: &LineIndex, span: Span) -> (u32, u32, u32, u32) {
-    let s = index.line_col(span.start, ColumnUnit::Char);
-    let e = index.line_col(span.end, ColumnUnit::Char);
-    (s.line + 1, s.col + 1, e.line + 1, e.col + 1)
-}
-
-pub fn json(reports: &[FileReport]) -> String {
-    let mut diagnostics = Vec::new();
-    for r in reports {
-        let index = LineIndex::new(&r.text);
-        for d in &r.diags {
-            let (line, column, end_line, end_column) = positions(&index, d.span);
-            diagnostics.push(JsonDiagnostic {
+/// `{"diagnostics": [...]}`: one-based lines, columns in characters.
+pub fn json_diagnostics(project: &Project) -> Vec<JsonDiagnostic> {
+    project
+        .diagnostics()
+        .map(|(f, d)| {
+            let (line, column, end_line, end_column) = positions(&f.lines, d.loc.span);
+            JsonDiagnostic {
                 code: d.code,
                 severity: d.severity.as_str(),
                 message: d.message.clone(),
-                file: r.name.clone(),
+                file: display_path(&f.path),
                 line,
                 column,
                 end_line,
                 end_column,
                 help: d.help.clone(),
-            });
-        }
-    }
-    let out = JsonOutput { diagnostics };
-    serde_json::to_string_pretty(&out).unwrap_or_else(|_| "{\"diagnostics\":[]}".to_string())
+            }
+        })
+        .collect()
 }
 
-/// `3 errors, 1 warning in 2 files`
-pub fn summary(reports: &[FileReport]) -> String {
-    let count = |s: Severity| {
-        reports
-            .iter()
-            .flat_map(|r| &r.diags)
-            .filter(|d| d.severity == s)
-            .count()
-    };
-    let plural = |n: usize, word: &str| {
-        if n == 1 {
-            format!("{n} {word}")
-        } else {
-            format!("{n} {word}s")
-        }
-    };
-    let (e, w) = (count(Severity::Error), count(Severity::Warning));
-    let files = plural(reports.len(), "file");
-    if e == 0 && w == 0 {
-        format!("no problems found in {files}")
-    } else {
-        format!(
-            "{}, {} in {files}",
-            plural(e, "error"),
-            plural(w, "warning")
-        )
+/// A Markdown table of every diagnostic, for a pull-request comment.
+pub fn markdown_diagnostics(project: &Project) -> String {
+    let mut out = format!("**{}**\n\n", summary(project));
+    let rows: Vec<_> = project.diagnostics().collect();
+    if rows.is_empty() {
+        return out;
     }
+    out.push_str("| Severity | Code | Where | Message |\n| --- | --- | --- | --- |\n");
+    for (f, d) in rows {
+        let (line, col, _, _) = positions(&f.lines, d.loc.span);
+        out.push_str(&format!(
+            "| {} | `{}` | `{}:{line}:{col}` | {} |\n",
+            d.severity,
+            d.code,
+            display_path(&f.path),
+            md_cell(&d.message)
+        ));
+    }
+    out
+}
+
+/// Text safe in a Markdown table cell.
+pub fn md_cell(s: &str) -> String {
+    s.replace('|', "\\|").replace(['\n', '\r'], " ")
 }

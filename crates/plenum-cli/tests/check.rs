@@ -27,6 +27,14 @@ fn diagnostics(out: &Output) -> Vec<serde_json::Value> {
     json(out)["diagnostics"].as_array().unwrap().clone()
 }
 
+/// The errors and warnings (infos, such as the defaults used, left out).
+fn problems(out: &Output) -> Vec<serde_json::Value> {
+    diagnostics(out)
+        .into_iter()
+        .filter(|d| d["severity"] != "info")
+        .collect()
+}
+
 fn write(dir: &Path, name: &str, bytes: &[u8]) -> PathBuf {
     let path = dir.join(name);
     if let Some(parent) = path.parent() {
@@ -178,7 +186,18 @@ fn text_output_shows_the_snippet_and_a_summary() {
     assert!(stdout.contains("expected a value, found `=`"), "{stdout}");
     assert!(stdout.contains("sensible = 3 kBtu/h"), "{stdout}");
     assert!(stdout.contains("without `=`"), "{stdout}");
-    assert!(stderr.contains("1 error, 0 warnings in 1 file"), "{stderr}");
+    assert!(
+        stdout.contains("1 error, 0 warnings, 0 infos in 1 file"),
+        "{stdout}"
+    );
+    assert!(stderr.is_empty(), "{stderr}");
+    // The text output ends with the caution.
+    assert!(
+        stdout
+            .trim_end()
+            .ends_with("the codes in force where the building stands govern."),
+        "{stdout}"
+    );
 }
 
 #[test]
@@ -192,7 +211,7 @@ fn a_value_in_the_wrong_unit_is_a_unit_mismatch_at_its_line() {
     );
     let out = plenum(&["check", "units.plenum", "--format", "json"], dir.path());
     assert_eq!(out.status.code(), Some(1));
-    let diags = diagnostics(&out);
+    let diags = problems(&out);
     assert_eq!(diags.len(), 1, "{diags:#?}");
     assert_eq!(diags[0]["code"], "unit-mismatch");
     assert_eq!(diags[0]["line"], 4);
@@ -220,7 +239,7 @@ fn a_shared_file_is_checked_through_the_design_that_uses_it() {
     );
     let out = plenum(&["check", "--format", "json"], dir.path());
     assert_eq!(out.status.code(), Some(1));
-    let diags = diagnostics(&out);
+    let diags = problems(&out);
     // Reported once, in the shared file, although two designs use it.
     assert_eq!(diags.len(), 1, "{diags:#?}");
     assert_eq!(diags[0]["file"], "shared/site.plenum");

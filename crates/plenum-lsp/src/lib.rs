@@ -79,5 +79,8 @@ pub fn run_with(options: Options) -> std::process::ExitCode {
         }
     };
     runtime.block_on(serve(tokio::io::stdin(), tokio::io::stdout(), options));
+    // A client may keep our stdin open after `exit`: do not wait for the
+    // blocking read on it, nor for a request the client never answered.
+    runtime.shutdown_timeout(std::time::Duration::from_millis(100));
     std::process::ExitCode::SUCCESS
 }

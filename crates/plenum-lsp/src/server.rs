@@ -149,14 +149,18 @@ impl LanguageServer for Backend {
             .collect();
         let options = DidChangeWatchedFilesRegistrationOptions { watchers };
         if let Ok(value) = serde_json::to_value(options) {
-            let _ = self
-                .client
-                .register_capability(vec![Registration {
-                    id: "plenum-watch".to_string(),
-                    method: "workspace/didChangeWatchedFiles".to_string(),
-                    register_options: Some(value),
-                }])
-                .await;
+            // Not awaited here: a client that never answers must not keep this
+            // handler (and so the server's exit) waiting.
+            let client = self.client.clone();
+            tokio::spawn(async move {
+                let _ = client
+                    .register_capability(vec![Registration {
+                        id: "plenum-watch".to_string(),
+                        method: "workspace/didChangeWatchedFiles".to_string(),
+                        register_options: Some(value),
+                    }])
+                    .await;
+            });
         }
     }
 

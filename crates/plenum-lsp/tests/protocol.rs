@@ -91,13 +91,11 @@ fn crlf_files_keep_their_lines_and_columns() {
 }
 
 fn coil_tons(h: &Value) -> String {
-    let m = markdown(h);
-    let line = m
+    markdown(h)
         .lines()
         .find(|l| l.contains("Coil total"))
         .unwrap_or("")
-        .to_string();
-    line
+        .to_string()
 }
 
 #[test]

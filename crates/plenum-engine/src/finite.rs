@@ -11,9 +11,9 @@ use crate::assumption::{AssumedValue, Assumption};
 use crate::error::EngineError;
 use crate::finding::{Finding, FindingKind};
 use crate::result::{
-    AhuInputs, AhuResult, Capacity, CaseResult, CoilResult, FanInput, FanResult, MultipleZone,
-    PressureSource, Rises, SiteResult, StandardAir, StatePoint, States, VentilationResult,
-    ZoneFlow, ZoneInputs,
+    AhuInputs, AhuOutcome, AhuResult, Capacity, CaseResult, CoilResult, Evaluation, FanInput,
+    FanResult, MultipleZone, PressureSource, Rises, SiteResult, StandardAir, StatePoint, States,
+    VentilationResult, ZoneFlow, ZoneInputs, ZoneResult,
 };
 
 /// Visit every `f64` of a value, with the name of its field.
@@ -32,6 +32,75 @@ pub(crate) fn ensure_finite<T: Floats>(value: &T, loc: Loc) -> Result<(), Engine
     match bad {
         Some(field) => Err(EngineError::NotFinite { field, loc }),
         None => Ok(()),
+    }
+}
+
+impl Evaluation {
+    /// The name of the first `f64` of the whole evaluation (site, zones, air
+    /// handlers, findings and assumptions) that is NaN or infinite, or `None`
+    /// when every number is finite. The same guard that checks each result
+    /// before it is returned, applied to everything at once: for tests and
+    /// fuzzing, which must not take the guard on trust.
+    pub fn first_non_finite(&self) -> Option<&'static str> {
+        let mut bad: Option<&'static str> = None;
+        self.floats(&mut |name, v| {
+            if bad.is_none() && !v.is_finite() {
+                bad = Some(name);
+            }
+        });
+        bad
+    }
+}
+
+impl<T: Floats, E> Floats for Result<T, E> {
+    fn floats(&self, f: &mut dyn FnMut(&'static str, f64)) {
+        if let Ok(v) = self {
+            v.floats(f);
+        }
+    }
+}
+
+impl Floats for Evaluation {
+    fn floats(&self, f: &mut dyn FnMut(&'static str, f64)) {
+        let Evaluation {
+            site,
+            zones,
+            ahus,
+            findings,
+        } = self;
+        site.floats(f);
+        zones.floats(f);
+        ahus.floats(f);
+        findings.floats(f);
+    }
+}
+
+impl Floats for ZoneResult {
+    fn floats(&self, f: &mut dyn FnMut(&'static str, f64)) {
+        let ZoneResult {
+            zone: _,
+            name: _,
+            loc: _,
+            inputs,
+            served_by: _,
+            flow,
+            assumptions,
+        } = self;
+        inputs.floats(f);
+        flow.floats(f);
+        assumptions.floats(f);
+    }
+}
+
+impl Floats for AhuOutcome {
+    fn floats(&self, f: &mut dyn FnMut(&'static str, f64)) {
+        let AhuOutcome {
+            index: _,
+            name: _,
+            loc: _,
+            result,
+        } = self;
+        result.floats(f);
     }
 }
 

@@ -457,6 +457,35 @@ mod tests {
         assert!(ensure_finite(&bad, loc()).is_err());
     }
 
+    /// The whole-evaluation guard reaches the zones' flows, the air handlers'
+    /// results and the design's own findings.
+    #[test]
+    fn whole_evaluation_guard_reaches_every_part() {
+        let e = evaluate(&office(1_000.0));
+        assert_eq!(e.first_non_finite(), None);
+        let mut bad = e.clone();
+        let Some(flow) = bad.zones[0].flow.as_mut() else {
+            panic!("no zone flow")
+        };
+        flow.room_rh_pct = f64::NAN;
+        assert_eq!(bad.first_non_finite(), Some("zone.room_rh_pct"));
+        let mut bad = e.clone();
+        let Some(Ok(r)) = bad.ahus.first_mut().map(|a| a.result.as_mut()) else {
+            panic!("no result")
+        };
+        r.cooling.coil.shr = f64::INFINITY;
+        assert_eq!(bad.first_non_finite(), Some("coil.shr"));
+        let mut bad = e;
+        bad.findings.push(Finding {
+            kind: FindingKind::DryCoil {
+                leaving_rh_pct: f64::NEG_INFINITY,
+            },
+            case: None,
+            loc: loc(),
+        });
+        assert_eq!(bad.first_non_finite(), Some("finding.leaving_rh_pct"));
+    }
+
     /// A dry coil with no outdoor air has no steady state (methods.md step
     /// 10). Through the public inputs this cannot happen — with x = 0 the
     /// coil sees the return air, which is never drier than the supply for a

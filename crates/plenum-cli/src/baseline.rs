@@ -10,7 +10,7 @@
 
 use std::collections::{BTreeMap, HashSet};
 use std::io;
-use std::path::{Component, Path, PathBuf};
+use std::path::{Path, PathBuf};
 use std::process::Command;
 
 use plenum_checks::Project;
@@ -108,7 +108,7 @@ impl GitFs {
     }
 
     /// The `*.plenum` files of the revision under `paths` (the working
-    /// folder when none), as paths relative to the working folder.
+    /// folder when none), as absolute paths.
     pub fn designs(&self, paths: &[PathBuf]) -> Vec<PathBuf> {
         let default = [PathBuf::from(".")];
         let roots = if paths.is_empty() {
@@ -126,20 +126,10 @@ impl GitFs {
                     .iter()
                     .any(|p| p.as_os_str() == "." || f.starts_with(p))
             })
-            .map(|f| self.shown(f))
+            .map(|f| self.root.join(f))
             .collect();
         out.sort();
         out
-    }
-
-    /// A repository path as the working tree's discovery names it: relative
-    /// to the working folder when inside it.
-    fn shown(&self, rel: &Path) -> PathBuf {
-        let abs = self.root.join(rel);
-        match abs.strip_prefix(&self.cwd) {
-            Ok(p) => p.to_path_buf(),
-            Err(_) => relative_to(&abs, &self.cwd),
-        }
     }
 
     /// The key a design is compared by: its path in the repository.
@@ -148,21 +138,6 @@ impl GitFs {
             .map(|p| display_path(&p))
             .unwrap_or_else(|| display_path(path))
     }
-}
-
-/// `target` relative to `base` with `..` steps (both absolute).
-fn relative_to(target: &Path, base: &Path) -> PathBuf {
-    let t: Vec<Component<'_>> = target.components().collect();
-    let b: Vec<Component<'_>> = base.components().collect();
-    let common = t.iter().zip(&b).take_while(|(x, y)| x == y).count();
-    let mut out = PathBuf::new();
-    for _ in common..b.len() {
-        out.push("..");
-    }
-    for c in &t[common..] {
-        out.push(c.as_os_str());
-    }
-    out
 }
 
 impl FileSystem for GitFs {
@@ -462,17 +437,4 @@ pub fn markdown(c: &Comparison) -> String {
 /// The caution, for Markdown output.
 pub fn caution_markdown() -> String {
     format!("> {CAUTION}\n")
-}
-
-#[cfg(test)]
-mod tests {
-    use super::*;
-
-    #[test]
-    fn relative_paths_climb_with_dots() {
-        assert_eq!(
-            relative_to(Path::new("/r/a/b.plenum"), Path::new("/r/c/d")),
-            PathBuf::from("../../a/b.plenum")
-        );
-    }
 }

@@ -75,10 +75,18 @@ struct JsonOutput {
 }
 
 pub fn run(args: &CheckArgs) -> Result<ExitCode, String> {
-    let paths = files::discover(&args.paths)?;
+    // Absolute paths, so that `plenum.toml` and the project root are found
+    // above every file (output shows them relative to the working folder).
+    let paths: Vec<PathBuf> = files::discover(&args.paths)?
+        .iter()
+        .map(|p| render::absolute(p))
+        .collect();
     let project = check_files(&RealFs, &paths);
     for (path, reason) in &project.unreadable {
-        eprintln!("error: cannot read `{}`: {reason}", path.display());
+        eprintln!(
+            "error: cannot read `{}`: {reason}",
+            render::display_path(path)
+        );
     }
     let comparison = match &args.baseline {
         Some(rev) => Some(baseline::compare(rev, &args.paths, &project)?),
@@ -88,6 +96,9 @@ pub fn run(args: &CheckArgs) -> Result<ExitCode, String> {
     match args.format {
         Format::Text => {
             out.push_str(&render::project_text(&project));
+            if !out.is_empty() && !out.ends_with("\n\n") {
+                out.push('\n');
+            }
             if let Some(c) = &comparison {
                 out.push_str(&baseline::text(c));
                 out.push('\n');

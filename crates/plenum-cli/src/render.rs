@@ -86,9 +86,29 @@ pub fn text(report: &FileReport) -> String {
     out
 }
 
-/// The name a file is shown by: its path with forward slashes.
+/// The working folder, once.
+fn cwd() -> Option<&'static Path> {
+    static CWD: std::sync::OnceLock<Option<std::path::PathBuf>> = std::sync::OnceLock::new();
+    CWD.get_or_init(|| std::env::current_dir().ok()).as_deref()
+}
+
+/// The name a file is shown by: relative to the working folder when it is
+/// inside it, with forward slashes.
 pub fn display_path(path: &Path) -> String {
-    path.to_string_lossy().replace('\\', "/")
+    let shown = cwd()
+        .and_then(|c| path.strip_prefix(c).ok())
+        .filter(|p| !p.as_os_str().is_empty())
+        .unwrap_or(path);
+    shown.to_string_lossy().replace('\\', "/")
+}
+
+/// `path` as an absolute path (relative paths start at the working folder),
+/// so that `plenum.toml` and the project root are found above it.
+pub fn absolute(path: &Path) -> std::path::PathBuf {
+    match cwd() {
+        Some(c) if path.is_relative() => plenum_model::fs::normalize(&c.join(path)),
+        _ => plenum_model::fs::normalize(path),
+    }
 }
 
 /// One-based line and column (in characters) of the start and end of `span`.

@@ -119,3 +119,223 @@ fn every_syntax_and_model_kind_has_a_registered_code() {
     }
     let _ = Path::new("");
 }
+
+/// The suppression example of `grammar/README.md` is valid: two
+/// suppressions, each above its block, with reasons.
+#[test]
+fn the_documented_suppression_example_is_valid() {
+    let doc = std::fs::read_to_string(
+        Path::new(env!("CARGO_MANIFEST_DIR")).join("../../grammar/README.md"),
+    )
+    .unwrap();
+    let section = doc.split("## Suppressions").nth(1).unwrap();
+    let block = section
+        .split("```plenum\n")
+        .nth(1)
+        .unwrap()
+        .split("```")
+        .next()
+        .unwrap();
+    let parse = plenum_syntax::parse(block);
+    assert!(parse.errors.is_empty());
+    let (s, d) = plenum_checks::suppress::suppressions(Path::new("x.plenum"), block, &parse);
+    assert!(d.is_empty(), "{d:#?}");
+    assert_eq!(s.len(), 2);
+    assert!(block[s[0].block.range()].starts_with("ahu ahu_3"));
+    assert!(block[s[1].block.range()].starts_with("coil {"));
+    assert_eq!(s[1].codes.len(), 2);
+}
+
+/// The codes other tools rely on, with their severities.
+#[test]
+fn the_fixed_codes_are_registered_with_their_severities() {
+    use plenum_checks::Severity::*;
+    for (code, severity) in [
+        ("undersized-coil", Error),
+        ("oversized-coil", Warning),
+        ("ventilation-shortfall", Error),
+        ("unit-mismatch", Error),
+        ("unknown-unit", Error),
+        ("missing-unit", Error),
+        ("unknown-name", Error),
+        ("duplicate-name", Error),
+        ("room-humidity", Warning),
+        ("assumption", Info),
+        ("unused-suppression", Warning),
+        ("suppression-without-reason", Error),
+    ] {
+        let c = lookup(code).unwrap_or_else(|| panic!("{code} is not registered"));
+        assert_eq!(c.severity, severity, "{code}");
+    }
+}
+
+/// Every engine error and finding kind maps to a registered code (the
+/// mapping is an exhaustive match; this checks its targets).
+#[test]
+fn every_engine_kind_maps_to_a_registered_code() {
+    use plenum_engine::{
+        Allowed, DesignCase, EngineError as E, FindingKind as F, Iteration, Point,
+    };
+    use plenum_model::{FileId, Loc, ZoneId};
+    let loc = Loc {
+        file: FileId(0),
+        span: Default::default(),
+    };
+    let z = ZoneId(0);
+    let c = DesignCase::Cooling;
+    let errors = [
+        E::NoSite { loc },
+        E::SiteUnusable { loc },
+        E::ZoneUnusable { zone: z, loc },
+        E::MissingInput {
+            key: "sensible",
+            loc,
+            zone: Some(z),
+        },
+        E::InvalidInput {
+            key: "sensible",
+            value: 0.0,
+            allowed: Allowed::Positive,
+            loc,
+        },
+        E::InputNotFinite {
+            key: "sensible",
+            loc,
+        },
+        E::ConflictingInputs {
+            first: "rise",
+            second: "power",
+            loc,
+        },
+        E::UnknownZone { loc },
+        E::ZoneServedTwice { zone: z, loc },
+        E::UnknownCategory {
+            zone: z,
+            written: "x".into(),
+            loc,
+        },
+        E::SupplyNotBelowRoom {
+            zone: z,
+            supply_f: 80.0,
+            room_f: 75.0,
+            loc,
+        },
+        E::OutdoorAirExceedsSupply {
+            case: c,
+            fraction: 2.0,
+            outdoor_cfm: 2.0,
+            supply_cfm: 1.0,
+            loc,
+        },
+        E::NoSteadyState { case: c, loc },
+        E::CoilNotCooling {
+            case: c,
+            entering_f: 50.0,
+            leaving_f: 50.0,
+            total_btuh: 0.0,
+            loc,
+        },
+        E::NoConvergence {
+            iteration: Iteration::Airflow,
+            passes: 1,
+            case: None,
+            loc,
+        },
+        E::NoApparatusDewPoint { case: c, loc },
+        E::Psychro {
+            point: Point::Mixed,
+            case: Some(c),
+            error: plenum_psychro::PsychroError::RelativeHumidityOutOfRange { value: 2.0 },
+            loc,
+        },
+        E::NotFinite {
+            field: "coil.total_btuh",
+            loc,
+        },
+    ];
+    for e in &errors {
+        let code = plenum_checks::error_code(e);
+        assert!(lookup(code).is_some(), "{e:?} → {code}");
+    }
+    let findings = [
+        F::UnknownCategory {
+            zone: z,
+            written: "x".into(),
+        },
+        F::AreaMissingForVentilation {
+            zone: z,
+            category: "office",
+        },
+        F::ElevationIgnored {
+            elevation_ft: 1.0,
+            pressure_psia: 14.0,
+        },
+        F::MotorEfficiencyIgnored {
+            motor_efficiency: 0.9,
+        },
+        F::VentilationShortfall {
+            provided_cfm: 1.0,
+            required_cfm: 2.0,
+        },
+        F::RoomAboveDesignHumidity {
+            zone: z,
+            room_w_lb_lb: 0.011,
+            design_w_lb_lb: 0.01,
+            room_rh_pct: 55.0,
+            design_rh_pct: 50.0,
+        },
+        F::RoomRhAboveLimit {
+            zone: z,
+            room_rh_pct: 70.0,
+            limit_pct: 65.0,
+        },
+        F::RoomRhOutsideComfort {
+            zone: z,
+            room_rh_pct: 30.0,
+            low_pct: 40.0,
+            high_pct: 60.0,
+        },
+        F::LeavingRhLow {
+            leaving_rh_pct: 70.0,
+            min_pct: 85.0,
+        },
+        F::SupplyDtOutOfRange {
+            zone: z,
+            dt_f: 5.0,
+            min_f: 10.0,
+            max_f: 25.0,
+        },
+        F::CfmPerTonOutOfRange {
+            cfm_per_ton: 200.0,
+            min: 300.0,
+            max: 500.0,
+        },
+        F::FaceVelocityHigh {
+            face_velocity_fpm: 600.0,
+            limit_fpm: 500.0,
+        },
+        F::LeavingDewPointNotBelowRoom {
+            leaving_dp_f: 55.0,
+            room_dp_f: 54.0,
+        },
+        F::DryCoil {
+            leaving_rh_pct: 60.0,
+        },
+        F::Undersized {
+            rated_btuh: Some(1.0),
+            required_btuh: 2.0,
+            rated_sensible_btuh: None,
+            required_sensible_btuh: 1.0,
+        },
+        F::Oversized {
+            rated_btuh: 2.0,
+            required_btuh: 1.0,
+            margin: 1.0,
+        },
+    ];
+    for f in &findings {
+        let code = plenum_checks::finding_code(f);
+        assert!(lookup(code).is_some(), "{f:?} → {code}");
+    }
+    assert!(lookup(plenum_checks::ASSUMPTION).is_some());
+}

@@ -159,7 +159,7 @@ impl Config {
             };
             let value_loc = at(value.span());
             let Some(level) = value.get_ref().as_str().and_then(Level::parse) else {
-                let shown = &text[value.span()];
+                let shown = text.get(value.span()).unwrap_or("this value");
                 config.diagnostics.push(
                     Diagnostic::new(
                         "invalid-config",

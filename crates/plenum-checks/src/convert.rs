@@ -896,8 +896,15 @@ impl Ctx<'_> {
                 rated_sensible_btuh,
                 required_sensible_btuh,
             } => {
-                let total_m = rated_btuh.map(|r| r / required_btuh - 1.0);
-                let sens_m = rated_sensible_btuh.map(|r| r / required_sensible_btuh - 1.0);
+                // A margin only against a load above zero (never inf or NaN).
+                let ratio = |rated: Option<f64>, required: f64| {
+                    rated
+                        .filter(|_| required > 0.0)
+                        .map(|r| r / required - 1.0)
+                        .filter(|m| m.is_finite())
+                };
+                let total_m = ratio(*rated_btuh, *required_btuh);
+                let sens_m = ratio(*rated_sensible_btuh, *required_sensible_btuh);
                 let total_short = total_m.is_some_and(|m| m < 0.0);
                 let total = match (rated_btuh, total_m) {
                     (Some(r), Some(m)) => Some(format!(

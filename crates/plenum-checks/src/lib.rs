@@ -77,6 +77,18 @@
 //! stand between) silences the named codes for diagnostics inside that block.
 //! The reason after `--` is required; see [`suppress`] for the rules.
 
+//! # Adding a check
+//!
+//! 1. Register it in [`registry::CHECKS`]: a kebab-case code, its default
+//!    severity, a one-line summary, whether a project may adjust it, and the
+//!    five parts of its documentation, with an example that triggers it.
+//! 2. Emit it: engine facts are mapped in `convert.rs` ([`finding_code`],
+//!    [`error_code`] are exhaustive matches); a check over the results is a
+//!    function there too.
+//! 3. Add a fixture under `tests/fixtures/` whose annotations expect it. The
+//!    tests fail until every registered code has a documentation block whose
+//!    example reports it, and a fixture that triggers it.
+
 #![forbid(unsafe_code)]
 #![warn(missing_docs)]
 

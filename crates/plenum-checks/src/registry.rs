@@ -281,9 +281,9 @@ pub static CHECKS: &[Check] = &[
             fix: "Write the value in a unit of the dimension the message names (`ft²` for an \
                   area, `Btu/h` or `kW` for a heat flow); where one unit fixes it, the fix \
                   offers it.",
-            source: "NIST SP 811 (2008), §7: a quantity is a number times a unit, and only \
-                     quantities of the same kind can be added or compared; the key table of \
-                     the format gives each key its dimension.",
+            source: "NIST SP 811 (2008): the value of a quantity is a number times a unit, \
+                     and only quantities of the same kind can be added or compared; the key \
+                     table of the format gives each key its dimension.",
         },
     },
     Check {
@@ -315,7 +315,7 @@ pub static CHECKS: &[Check] = &[
                   unit.",
             example: "site { cooling 94 °F db, 75 °F wb }\nzone office { sensible 38_500 }\nahu a { serves office }\n",
             fix: "Write the unit after the number: `38_500 Btu/h`.",
-            source: "NIST SP 811 (2008), §7.1: the value of a quantity is a number and a unit.",
+            source: "NIST SP 811 (2008): the value of a quantity is a number and a unit.",
         },
     },
     Check {
@@ -333,8 +333,8 @@ pub static CHECKS: &[Check] = &[
             example: "let t = 75 °F + 75 °F\n",
             fix: "Add a temperature difference (`3 °F` in a field that takes a difference, or \
                   `3 K`) to a temperature, or subtract two temperatures.",
-            source: "NIST SP 811 (2008), §8.5: temperature and temperature interval are \
-                     distinct quantities.",
+            source: "NIST SP 811 (2008): a temperature and a temperature interval are \
+                     distinct quantities (methods.md §6).",
         },
     },
     Check {
@@ -657,9 +657,9 @@ pub static CHECKS: &[Check] = &[
             fix: "Write one of the categories of the table (`plenum explain \
                   ventilation-shortfall` names the standard), or leave `use` out and give the \
                   unit's outdoor air directly.",
-            source: "ANSI/ASHRAE Standard 62.1-2019, table 6-1 (the categories and rates are \
-                     written from memory of the 2016–2019 editions: check the edition in \
-                     force).",
+            source: "ANSI/ASHRAE Standard 62.1-2019, the table of minimum ventilation rates in \
+                     breathing zones (the categories and rates are written from memory of the \
+                     2016–2019 editions: check the edition in force).",
         },
     },
     Check {
@@ -810,9 +810,8 @@ pub static CHECKS: &[Check] = &[
             example: "site { cooling 94 °F db, 75 °F wb }\nzone office { area 1_000 ft²; people 20; use office; sensible 12 kBtu/h }\nahu a {\n  serves office\n  outdoor_air 50 cfm\n}\n",
             fix: "Raise the outdoor air to at least the required figure, or let the engine \
                   compute it (`outdoor_air ventilation`).",
-            source: "ANSI/ASHRAE Standard 62.1-2019, §6.2 ventilation rate procedure (written \
-                     from memory of the 2016–2019 editions; the mechanical code in force \
-                     governs).",
+            source: "ANSI/ASHRAE Standard 62.1-2019, ventilation rate procedure (written from \
+                     memory of the 2016–2019 editions; the mechanical code in force governs).",
         },
     },
     Check {
@@ -970,8 +969,8 @@ pub static CHECKS: &[Check] = &[
             why: "The outdoor-air requirement comes out too low.",
             example: "site { cooling 94 °F db, 75 °F wb }\nzone office { people 5; use office; sensible 12 kBtu/h }\nahu a { serves office }\n",
             fix: "Give the zone its floor area.",
-            source: "ANSI/ASHRAE Standard 62.1-2019, §6.2.2.1 (V_bz = R_p P_z + R_a A_z; from \
-                     memory).",
+            source: "ANSI/ASHRAE Standard 62.1-2019, ventilation rate procedure: \
+                     V_bz = R_p P_z + R_a A_z (from memory).",
         },
     },
     Check {

@@ -193,3 +193,48 @@ fn every_registered_code_has_a_fixture_that_triggers_it() {
         );
     }
 }
+
+/// Truncated fixtures and odd suppression comments: the runner never
+/// panics, and everything it reports is registered and finite.
+#[test]
+fn damaged_inputs_never_panic() {
+    let mut texts: Vec<String> = Vec::new();
+    for (_, files) in all_fixtures() {
+        for (name, bytes) in files {
+            if !name.ends_with(".plenum") {
+                continue;
+            }
+            let text = text_of(&bytes);
+            let bounds: Vec<usize> = (0..=text.len())
+                .filter(|&i| text.is_char_boundary(i))
+                .collect();
+            let step = (bounds.len() / 25).max(1);
+            for &b in bounds.iter().step_by(step) {
+                texts.push(text[..b].to_string());
+            }
+        }
+    }
+    for comment in [
+        "# plenum:",
+        "#plenum:allow",
+        "# plenum: allow -- only a reason",
+        "# plenum: allow ,, -- commas",
+        "# plenum: allow oversized-coil--no spaces",
+        "# plenum: allow oversized-coil -- ",
+        "# plenum: allowoversized-coil -- glued",
+        "# plenum: allow é -- non-ASCII code",
+    ] {
+        texts.push(format!("{comment}\nzone a {{ sensible 1 kBtu/h }}\n"));
+        texts.push(comment.to_string());
+    }
+    for text in &texts {
+        let mut fs = MemoryFs::new();
+        fs.insert("/p/d.plenum", text.as_bytes().to_vec());
+        let project = check_files(&fs, &[PathBuf::from("/p/d.plenum")]);
+        for (f, d) in project.diagnostics() {
+            assert!(lookup(d.code).is_some(), "{}", d.code);
+            assert!(d.loc.span.end as usize <= f.text.len(), "{d:?}");
+            assert!(!d.message.contains("NaN"), "{}", d.message);
+        }
+    }
+}

@@ -825,8 +825,9 @@ pub static CHECKS: &[Check] = &[
                    its dry bulb: a warning outside the 40–60 % comfort band, an error above \
                    65 %. With a dehumidification design state it is reported once, at the case \
                    with the higher humidity, which it names.",
-            why: "Above 60 % occupants feel clammy; above 65 % mould and dust mites thrive and \
-                  the ventilation standard's humidity limit is exceeded.",
+            why: "Above 60 % rooms feel clammy; above 65 % the humidity limit of the \
+                  ventilation standard is exceeded and mould growth becomes a risk; below 40 % \
+                  rooms feel dry.",
             example: "site { cooling 94 °F db, 75 °F wb }\nzone gym { area 1_000 ft²; people 40; use office; sensible 10 kBtu/h; latent 20 kBtu/h }\nahu a { serves gym }\n",
             fix: "Lower the supply temperature or the leaving-coil RH (a colder, drier coil), \
                   reduce the latent load, or treat the outdoor air separately.",

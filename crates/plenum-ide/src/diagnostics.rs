@@ -2,14 +2,12 @@
 //! related places in any file of the design and an optional fix.
 //!
 //! [`collect`] is the one function that turns a built design into
-//! diagnostics. It takes the syntax errors of each file and the model's
-//! findings; the engine's findings are worded by the checks crate, which
-//! this function calls once it exists.
+//! diagnostics: it runs `plenum_checks::check`, as `plenum check` does.
 
 use std::path::PathBuf;
 
 use plenum_engine::Evaluation;
-use plenum_model::{Model, ModelDiagnostic};
+use plenum_model::Model;
 
 use crate::{FileRange, SourceChange, Span, TextEdit};
 
@@ -51,97 +49,66 @@ pub struct Diagnostic {
     pub fix: Option<Fix>,
 }
 
-/// Every diagnostic of a design, by file. `config` is the project's
-/// `plenum.toml` (path and text) when there is one.
+/// Codes that report an absence (a suppression nothing needed, a zone no
+/// air handler serves): in a file that several designs read, they hold only
+/// when every one of those designs reports them (as `plenum check` does).
+pub(crate) const ABSENCE: [&str; 2] = ["unused-suppression", "unserved-zone"];
+
+/// Every diagnostic of a design, by file: `plenum-checks` turns the syntax
+/// errors, the model's findings and the engine's errors, findings and
+/// assumptions into coded diagnostics, with the severities of the
+/// project's `plenum.toml` and the file's suppressions applied — the same
+/// function `plenum check` runs.
 pub(crate) fn collect(
     model: &Model,
     eval: &Evaluation,
-    config: Option<&(PathBuf, String)>,
+    config: &plenum_checks::Config,
 ) -> Vec<(PathBuf, Diagnostic)> {
-    let _ = (eval, config);
-    let mut out = Vec::new();
-    for f in &model.files {
-        for e in &f.parse.errors {
-            out.push((
-                f.path.clone(),
-                Diagnostic {
-                    code: e.kind.code().to_string(),
-                    severity: Severity::Error,
-                    message: e.message.clone(),
-                    span: e.span,
-                    label: e.label.clone(),
-                    related: e
-                        .related
-                        .iter()
-                        .map(|(span, message)| Related {
-                            range: FileRange {
-                                path: f.path.clone(),
-                                span: *span,
-                            },
-                            message: message.clone(),
-                        })
-                        .collect(),
-                    help: e.help.clone(),
-                    fix: None,
-                },
-            ));
-        }
-    }
-    for d in &model.diagnostics {
-        if let Some(f) = model.file(d.loc.file) {
-            out.push((f.path.clone(), from_model(model, d)));
-        }
-    }
-    out
+    plenum_checks::check(model, eval, config)
+        .into_iter()
+        .map(|d| (d.loc.file.clone(), from_checks(d)))
+        .collect()
 }
 
-fn range(model: &Model, loc: plenum_model::Loc) -> Option<FileRange> {
-    Some(FileRange {
-        path: model.file(loc.file)?.path.clone(),
-        span: loc.span,
-    })
-}
-
-fn from_model(model: &Model, d: &ModelDiagnostic) -> Diagnostic {
-    let fix = d.fix.as_ref().map(|f| {
+fn from_checks(d: plenum_checks::Diagnostic) -> Diagnostic {
+    let fix = d.fix.map(|f| {
         let mut change = SourceChange::default();
-        for e in &f.edits {
-            if let Some(r) = range(model, e.loc) {
-                change.insert(
-                    &r.path,
-                    TextEdit {
-                        span: r.span,
-                        new_text: e.text.clone(),
-                    },
-                );
-            }
+        for e in f.edits {
+            change.insert(
+                &e.loc.file,
+                TextEdit {
+                    span: e.loc.span,
+                    new_text: e.text,
+                },
+            );
         }
         Fix {
-            title: f.title.clone(),
+            title: f.title,
             change,
         }
     });
     Diagnostic {
-        code: d.code.code().to_string(),
+        code: d.code.to_string(),
         severity: match d.severity {
-            plenum_model::Severity::Error => Severity::Error,
-            plenum_model::Severity::Warning => Severity::Warning,
-            plenum_model::Severity::Info => Severity::Info,
+            plenum_checks::Severity::Error => Severity::Error,
+            plenum_checks::Severity::Warning => Severity::Warning,
+            plenum_checks::Severity::Info => Severity::Info,
         },
-        message: d.message.clone(),
+        message: d.message,
         span: d.loc.span,
-        label: d.label.clone(),
+        label: d.label,
         related: d
-            .related
-            .iter()
-            .filter_map(|(loc, message)| {
-                Some(Related {
-                    range: range(model, *loc)?,
-                    message: message.clone(),
-                })
+            .labels
+            .into_iter()
+            .map(|l| Related {
+                range: FileRange {
+                    path: l.loc.file,
+                    span: l.loc.span,
+                },
+                message: l.text,
             })
             .collect(),
-        help: d.help.clone(),
+        help: d.help,
         fix,
     }
 }

@@ -81,15 +81,60 @@ impl Analysis {
                     ),
                 })
             }
-            Node::Comment(span) => comment_hover(&ctx, span),
+            Node::Comment(span) => comment_hover(&ctx, span, offset),
         }
     }
 }
 
-/// A hover on a comment: a diagnostic code written in it is explained.
-fn comment_hover(ctx: &FileCtx<'_>, span: Span) -> Option<Hover> {
-    let _ = (ctx, span);
-    None
+/// A hover on a comment: a diagnostic code written in it (a suppression's
+/// `# plenum: allow CODE -- reason`, or a code named in a note) is explained
+/// from the checks registry; elsewhere on a suppression, every code it
+/// allows is.
+fn comment_hover(ctx: &FileCtx<'_>, span: Span, offset: u32) -> Option<Hover> {
+    let text = ctx.text();
+    let (sups, _) = plenum_checks::suppress::suppressions(&ctx.file.path, text, &ctx.file.parse);
+    let sup = sups.iter().find(|s| s.comment == span);
+    if let Some(s) = sup
+        && let Some(c) = s.codes.iter().find(|c| c.span.touches(offset))
+        && let Some(check) = plenum_checks::lookup(c.code)
+    {
+        return Some(Hover {
+            span: c.span,
+            markdown: check.explain(),
+        });
+    }
+    // A registered code under the cursor, in any comment.
+    let comment = span.text(text);
+    let rel = offset.checked_sub(span.start)? as usize;
+    let is_code_char = |c: char| c.is_ascii_lowercase() || c.is_ascii_digit() || c == '-';
+    let start = comment[..rel.min(comment.len())]
+        .rfind(|c: char| !is_code_char(c))
+        .map_or(0, |i| i + 1);
+    let end = comment[start..]
+        .find(|c: char| !is_code_char(c))
+        .map_or(comment.len(), |i| start + i);
+    if let Some(check) = comment.get(start..end).and_then(plenum_checks::lookup) {
+        return Some(Hover {
+            span: Span::new(span.start + start as u32, span.start + end as u32),
+            markdown: check.explain(),
+        });
+    }
+    let s = sup?;
+    let mut md = format!(
+        "**Suppression**: {}\n\nReason: {}\n",
+        s.codes
+            .iter()
+            .map(|c| format!("`{}`", c.code))
+            .collect::<Vec<_>>()
+            .join(", "),
+        s.reason
+    );
+    for c in &s.codes {
+        if let Some(check) = plenum_checks::lookup(c.code) {
+            let _ = write!(md, "\n- `{}`: {}", check.code, check.summary);
+        }
+    }
+    Some(Hover { span, markdown: md })
 }
 
 fn block_hover(ctx: &FileCtx<'_>, b: &Block) -> Option<Hover> {

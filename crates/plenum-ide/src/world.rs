@@ -28,11 +28,8 @@ impl DesignData {
     pub fn build(fs: &dyn plenum_model::FileSystem, root: &Path, text: String) -> DesignData {
         let model = Model::build(fs, root, text);
         let eval = plenum_engine::evaluate(&model.design);
-        let config = plenum_model::fs::config_file(fs, root).and_then(|p| {
-            let text = String::from_utf8(fs.read(&p).ok()?).ok()?;
-            Some((p, text))
-        });
-        let diagnostics = diagnostics::collect(&model, &eval, config.as_ref());
+        let config = plenum_checks::Config::discover(fs, root);
+        let diagnostics = diagnostics::collect(&model, &eval, &config);
         let system = model
             .design
             .project
@@ -168,11 +165,20 @@ impl Analysis {
     pub fn diagnostics(&self, path: &Path) -> Vec<Diagnostic> {
         let path = normalize(path);
         let mut out: Vec<Diagnostic> = Vec::new();
-        for d in self.designs_with(&path) {
+        let designs: Vec<&DesignData> = self.designs_with(&path).collect();
+        for d in &designs {
             for (p, diag) in &d.diagnostics {
-                if *p == path && !out.contains(diag) {
-                    out.push(diag.clone());
+                if *p != path || out.contains(diag) {
+                    continue;
                 }
+                if diagnostics::ABSENCE.contains(&diag.code.as_str())
+                    && !designs
+                        .iter()
+                        .all(|o| o.diagnostics.iter().any(|(q, e)| *q == path && e == diag))
+                {
+                    continue;
+                }
+                out.push(diag.clone());
             }
         }
         out.sort_by(|a, b| {

@@ -13,6 +13,7 @@ mod files;
 mod fmt;
 mod github;
 mod render;
+mod report;
 mod sarif;
 
 use std::process::ExitCode;
@@ -41,6 +42,8 @@ enum Command {
     Air(air::AirArgs),
     /// Rewrite design files in the canonical layout.
     Fmt(fmt::FmtArgs),
+    /// Print the coil schedule, zones, assumptions and findings of each design.
+    Report(report::ReportArgs),
 }
 
 /// The unit system of printed values.
@@ -75,6 +78,7 @@ fn main() -> ExitCode {
         Command::Explain(args) => explain::run(&args),
         Command::Air(args) => air::run(&args),
         Command::Fmt(args) => fmt::run(&args),
+        Command::Report(args) => report::run(&args),
     };
     match result {
         Ok(code) => code,

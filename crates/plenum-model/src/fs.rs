@@ -126,30 +126,38 @@ pub fn project_root(fs: &dyn FileSystem, file: &Path) -> PathBuf {
     let file = normalize(file);
     let start = file.parent().map(Path::to_path_buf).unwrap_or_default();
     for marker in [CONFIG_FILE, ".git"] {
-        let mut dir = Some(start.as_path());
-        while let Some(d) = dir {
+        for d in ancestors(&start) {
             let candidate = d.join(marker);
             if fs.is_file(&candidate) || fs.is_dir(&candidate) {
-                return normalize(d);
+                return normalize(&d);
             }
-            dir = d.parent().filter(|p| !p.as_os_str().is_empty());
         }
     }
     normalize(&start)
 }
 
+/// The folder and every folder above it; a relative path ends with `.`, the
+/// working folder (so `design/u.plenum` also looks in `.`).
+fn ancestors(dir: &Path) -> Vec<PathBuf> {
+    let mut out: Vec<PathBuf> = dir
+        .ancestors()
+        .filter(|p| !p.as_os_str().is_empty())
+        .map(Path::to_path_buf)
+        .collect();
+    if dir.is_relative() && out.last().is_none_or(|p| p != Path::new(".")) {
+        out.push(PathBuf::from("."));
+    }
+    out
+}
+
 /// The `plenum.toml` that applies to `file`, if there is one.
 pub fn config_file(fs: &dyn FileSystem, file: &Path) -> Option<PathBuf> {
     let file = normalize(file);
-    let mut dir = file.parent();
-    while let Some(d) = dir {
-        let candidate = d.join(CONFIG_FILE);
-        if fs.is_file(&candidate) {
-            return Some(candidate);
-        }
-        dir = d.parent().filter(|p| !p.as_os_str().is_empty());
-    }
-    None
+    let start = file.parent().map(Path::to_path_buf).unwrap_or_default();
+    ancestors(&start)
+        .into_iter()
+        .map(|d| d.join(CONFIG_FILE))
+        .find(|c| fs.is_file(c))
 }
 
 #[cfg(test)]
@@ -188,5 +196,21 @@ mod tests {
             config_file(&fs, Path::new("/w/repo/campus/east/a.plenum")),
             Some(PathBuf::from("/w/repo/campus/plenum.toml"))
         );
+    }
+
+    #[test]
+    fn relative_paths_look_in_the_working_folder_too() {
+        let mut fs = MemoryFs::new();
+        fs.insert("plenum.toml", "");
+        fs.insert("design/u.plenum", "");
+        assert_eq!(
+            project_root(&fs, Path::new("design/u.plenum")),
+            PathBuf::from(".")
+        );
+        assert_eq!(
+            config_file(&fs, Path::new("design/u.plenum")),
+            Some(PathBuf::from("./plenum.toml"))
+        );
+        assert_eq!(project_root(&fs, Path::new("u.plenum")), PathBuf::from("."));
     }
 }

@@ -4,8 +4,8 @@
 use std::collections::HashMap;
 
 use plenum_engine::{
-    AhuResult, AssumedValue, Assumption, CaseResult, DesignCase, EngineError, Evaluation, Finding,
-    FindingKind, Iteration, Point, Subject, ZoneFlow,
+    AhuResult, AssumedValue, Assumption, DesignCase, EngineError, Evaluation, Finding, FindingKind,
+    Iteration, Point, Subject,
 };
 use plenum_model::{FanArrangement, Model, ModelDiagnostic, ZoneId};
 use plenum_syntax::{Block, Entry, Item, Span, SyntaxError};
@@ -53,7 +53,7 @@ pub fn finding_code(k: &FindingKind) -> &'static str {
         FindingKind::SupplyDtOutOfRange { .. } => "supply-dt-range",
         FindingKind::CfmPerTonOutOfRange { .. } => "airflow-per-ton",
         FindingKind::FaceVelocityHigh { .. } => "coil-face-velocity",
-        FindingKind::LeavingDewPointNotBelowRoom { .. } => "coil-cannot-dehumidify",
+        FindingKind::CoilCannotDehumidify { .. } => "coil-cannot-dehumidify",
         FindingKind::DryCoil { .. } => "dry-coil",
         FindingKind::Undersized { .. } => "undersized-coil",
         FindingKind::Oversized { .. } => "oversized-coil",
@@ -553,18 +553,11 @@ impl Ctx<'_> {
             {
                 continue;
             }
-            if let FindingKind::LeavingDewPointNotBelowRoom { .. } = f.kind
-                && f.case
-                    .and_then(|c| r.case(c))
-                    .is_some_and(|c| c.block_latent_btuh <= 0.0)
-            {
-                // No latent load: the supply need not be drier than the room.
-                continue;
-            }
             if let FindingKind::RoomAboveDesignHumidity { zone, .. } = f.kind
-                && f.case
-                    .and_then(|c| r.case(c))
-                    .is_some_and(|c| self.cannot_dehumidify(c).iter().any(|z| z.zone == zone))
+                && r.findings.iter().any(|g| {
+                    g.case == f.case
+                        && matches!(g.kind, FindingKind::CoilCannotDehumidify { zone: z, .. } if z == zone)
+                })
             {
                 // The coil cannot reach the design state: that finding says it.
                 continue;
@@ -573,17 +566,6 @@ impl Ctx<'_> {
                 continue;
             };
             let key = (c.diag.code, f.loc, zone_of(&f.kind));
-            match groups.iter_mut().find(|(k, _)| *k == key) {
-                Some((_, v)) => v.push(c),
-                None => groups.push((key, vec![c])),
-            }
-        }
-        let ahu_loc = self.model.design.ahus.get(index).map(|a| a.name_loc);
-        for case in std::iter::once(&r.cooling).chain(r.dehumid.as_ref()) {
-            let (Some(loc), Some(c)) = (ahu_loc, self.dehumidify_candidate(index, case)) else {
-                continue;
-            };
-            let key = (c.diag.code, loc, None);
             match groups.iter_mut().find(|(k, _)| *k == key) {
                 Some((_, v)) => v.push(c),
                 None => groups.push((key, vec![c])),
@@ -605,59 +587,6 @@ impl Ctx<'_> {
                 Some(d)
             })
             .collect()
-    }
-
-    /// The served zones whose indoor design state a wet coil's leaving air
-    /// is not drier than (methods.md §5: the coil cannot dehumidify).
-    fn cannot_dehumidify<'c>(&self, c: &'c CaseResult) -> Vec<&'c ZoneFlow> {
-        if c.coil.dry {
-            return Vec::new();
-        }
-        let w_off = c.states.leaving.w_lb_lb;
-        c.zones
-            .iter()
-            .filter(|z| {
-                let latent = self
-                    .model
-                    .design
-                    .zone(z.zone)
-                    .and_then(|d| d.latent_btuh)
-                    .is_some_and(|l| l.value > 0.0);
-                w_off > z.design_w_lb_lb || (w_off >= z.design_w_lb_lb && latent)
-            })
-            .collect()
-    }
-
-    fn dehumidify_candidate(&self, index: usize, c: &CaseResult) -> Option<Candidate> {
-        let zones = self.cannot_dehumidify(c);
-        let worst = zones
-            .iter()
-            .min_by(|a, b| a.design_w_lb_lb.total_cmp(&b.design_w_lb_lb))?;
-        let loc = self.loc(self.model.design.ahus.get(index)?.name_loc);
-        let names: Vec<String> = zones.iter().map(|z| format!("`{}`", z.name)).collect();
-        let leaving = &c.states.leaving;
-        let diag = Diagnostic::new(
-            "coil-cannot-dehumidify",
-            loc,
-            format!(
-                "the air leaving the coil of {} (dew point {}, {:.4} lb/lb) is not drier than the design state of zone{} {} ({:.4} lb/lb, {} RH): the coil cannot dehumidify {}",
-                self.ahu_title(index),
-                temp(leaving.tdp_f, self.si),
-                leaving.w_lb_lb,
-                if names.len() > 1 { "s" } else { "" },
-                names.join(", "),
-                worst.design_w_lb_lb,
-                pct(worst.design_rh_pct),
-                if names.len() > 1 { "them" } else { "it" }
-            ),
-        )
-        .label("supply air too moist for the design state")
-        .help("lower the leaving-coil state (supply temperature or `leaving_rh`), or raise the zone's design humidity if it allows");
-        Some(Candidate {
-            badness: leaving.w_lb_lb - worst.design_w_lb_lb,
-            diag,
-            case: Some(c.case),
-        })
     }
 
     fn finding(&self, f: &Finding, ahu: Option<(usize, &AhuResult)>) -> Option<Candidate> {
@@ -863,21 +792,28 @@ impl Ctx<'_> {
                 .help("select a coil with a larger face area"),
                 *face_velocity_fpm,
             ),
-            FindingKind::LeavingDewPointNotBelowRoom {
+            FindingKind::CoilCannotDehumidify {
+                zone,
                 leaving_dp_f,
-                room_dp_f,
+                leaving_w_lb_lb,
+                design_w_lb_lb,
+                design_rh_pct,
             } => (
                 Diagnostic::new(
                     code,
                     loc,
                     format!(
-                        "the air leaving the coil of {who} has a dew point of {}, not below the room's {}: it cannot take up the room's moisture",
+                        "the air leaving the coil of {who} (dew point {}, {:.4} lb/lb) is not drier than the design state of zone `{}` ({:.4} lb/lb, {} RH): the coil cannot dehumidify it",
                         temp(*leaving_dp_f, si),
-                        temp(*room_dp_f, si)
+                        leaving_w_lb_lb,
+                        self.zone(*zone),
+                        design_w_lb_lb,
+                        pct(*design_rh_pct)
                     ),
                 )
-                .help("lower the leaving-coil state (supply temperature or `leaving_rh`)"),
-                leaving_dp_f - room_dp_f,
+                .label("supply air too moist for the design state")
+                .help("lower the leaving-coil state (supply temperature or `leaving_rh`), or raise the zone's design humidity if it allows"),
+                leaving_w_lb_lb - design_w_lb_lb,
             ),
             FindingKind::DryCoil { leaving_rh_pct } => (
                 Diagnostic::new(
@@ -973,6 +909,7 @@ fn zone_of(k: &FindingKind) -> Option<ZoneId> {
         FindingKind::UnknownCategory { zone, .. }
         | FindingKind::AreaMissingForVentilation { zone, .. }
         | FindingKind::RoomAboveDesignHumidity { zone, .. }
+        | FindingKind::CoilCannotDehumidify { zone, .. }
         | FindingKind::RoomRhAboveLimit { zone, .. }
         | FindingKind::RoomRhOutsideComfort { zone, .. }
         | FindingKind::SupplyDtOutOfRange { zone, .. } => Some(*zone),

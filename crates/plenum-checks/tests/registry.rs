@@ -314,9 +314,12 @@ fn every_engine_kind_maps_to_a_registered_code() {
             face_velocity_fpm: 600.0,
             limit_fpm: 500.0,
         },
-        F::LeavingDewPointNotBelowRoom {
+        F::CoilCannotDehumidify {
+            zone: ZoneId(0),
             leaving_dp_f: 55.0,
-            room_dp_f: 54.0,
+            leaving_w_lb_lb: 0.0092,
+            design_w_lb_lb: 0.0090,
+            design_rh_pct: 50.0,
         },
         F::DryCoil {
             leaving_rh_pct: 60.0,

@@ -802,13 +802,26 @@ fn case_findings(a: &AhuIn, r: &CaseResult, findings: &mut Vec<Finding>) {
             a.locs.face_area,
         );
     }
-    if !r.coil.dry && r.states.leaving.tdp_f >= r.states.room.tdp_f {
-        push(
-            FindingKind::LeavingDewPointNotBelowRoom {
-                leaving_dp_f: r.states.leaving.tdp_f,
-                room_dp_f: r.states.room.tdp_f,
-            },
-            ahu,
-        );
+    if !r.coil.dry {
+        let w_off = r.states.leaving.w_lb_lb;
+        for (zf, z) in r.zones.iter().zip(&a.zones) {
+            let too_moist = if z.q_l > 0.0 {
+                w_off >= zf.design_w_lb_lb
+            } else {
+                w_off > zf.design_w_lb_lb
+            };
+            if too_moist {
+                push(
+                    FindingKind::CoilCannotDehumidify {
+                        zone: zf.zone,
+                        leaving_dp_f: r.states.leaving.tdp_f,
+                        leaving_w_lb_lb: w_off,
+                        design_w_lb_lb: zf.design_w_lb_lb,
+                        design_rh_pct: zf.design_rh_pct,
+                    },
+                    ahu,
+                );
+            }
+        }
     }
 }

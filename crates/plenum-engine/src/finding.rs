@@ -132,13 +132,23 @@ pub enum FindingKind {
         /// The limit, fpm.
         limit_fpm: f64,
     },
-    /// A wet coil's leaving dew point is not below the room dew point: the
-    /// coil cannot dehumidify the room (an error in methods.md §5).
-    LeavingDewPointNotBelowRoom {
+    /// A wet coil's leaving air is not drier than a served zone's indoor
+    /// design state (its dew point is not below the design dew point), so the
+    /// coil cannot hold that zone at its design humidity (an error in
+    /// methods.md §5). A zone with a latent load needs supply air strictly
+    /// drier than its design state; a zone without one, no wetter. One
+    /// finding per zone.
+    CoilCannotDehumidify {
+        /// The zone.
+        zone: ZoneId,
         /// Leaving-coil dew point, °F.
         leaving_dp_f: f64,
-        /// Room dew point, °F.
-        room_dp_f: f64,
+        /// Leaving-coil humidity ratio, lb/lb.
+        leaving_w_lb_lb: f64,
+        /// The zone's indoor design humidity ratio, lb/lb.
+        design_w_lb_lb: f64,
+        /// The zone's indoor design relative humidity, %.
+        design_rh_pct: f64,
     },
     /// The coil runs dry: nothing condenses.
     DryCoil {

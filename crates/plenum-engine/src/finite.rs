@@ -268,12 +268,17 @@ impl Floats for Finding {
                 f("finding.face_velocity_fpm", *face_velocity_fpm);
                 f("finding.limit_fpm", *limit_fpm);
             }
-            FindingKind::LeavingDewPointNotBelowRoom {
+            FindingKind::CoilCannotDehumidify {
+                zone: _,
                 leaving_dp_f,
-                room_dp_f,
+                leaving_w_lb_lb,
+                design_w_lb_lb,
+                design_rh_pct,
             } => {
                 f("finding.leaving_dp_f", *leaving_dp_f);
-                f("finding.room_dp_f", *room_dp_f);
+                f("finding.leaving_w_lb_lb", *leaving_w_lb_lb);
+                f("finding.design_w_lb_lb", *design_w_lb_lb);
+                f("finding.design_rh_pct", *design_rh_pct);
             }
             FindingKind::DryCoil { leaving_rh_pct } => f("finding.leaving_rh_pct", *leaving_rh_pct),
             FindingKind::Undersized {

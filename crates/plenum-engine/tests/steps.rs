@@ -785,11 +785,31 @@ fn plausibility_findings() {
     )));
 }
 
-/// A leaving dew point not below the room's: the coil cannot dehumidify
-/// (methods.md §5, README choice 26). With no latent load and no outdoor
-/// air the room keeps the leaving humidity, so its dew point is the same.
+/// Leaving air not drier than a zone's design state: the coil cannot hold the
+/// zone at its design humidity (methods.md §5, README choice 26). A dry design
+/// state (75 °F, 35 %rh, W ≈ 0.0065 lb/lb) against a coil leaving at about
+/// 53 °F and 95 % (W ≈ 0.0083 lb/lb) fires it; the ordinary 50 %rh design
+/// does not, even with no latent load (the old comparison with the resulting
+/// room state fired there, wrongly).
 #[test]
-fn leaving_dew_point_not_below_room() {
+fn coil_cannot_dehumidify_a_zone_with_a_drier_design_state() {
+    let mut d = office();
+    d.zones[0].indoor = Some(at(AirSpec::DbRh {
+        db_f: 75.0,
+        rh: 0.35,
+    }));
+    let r = result(&d);
+    let hit = r.findings.iter().find_map(|f| match f.kind {
+        FindingKind::CoilCannotDehumidify {
+            leaving_w_lb_lb,
+            design_w_lb_lb,
+            ..
+        } => Some((leaving_w_lb_lb, design_w_lb_lb)),
+        _ => None,
+    });
+    let (leaving, design) = hit.expect("the finding");
+    assert!(leaving > design, "{leaving} vs {design}");
+
     let mut d = office();
     d.zones[0].latent_btuh = Some(at(0.0));
     d.zones[0].indoor = Some(at(AirSpec::DbRh {
@@ -799,9 +819,9 @@ fn leaving_dew_point_not_below_room() {
     d.ahus[0].outdoor_air = Some(at(OutdoorAir::FractionOfSupply { fraction: 0.0 }));
     let r = result(&d);
     assert!(
-        r.findings
+        !r.findings
             .iter()
-            .any(|f| matches!(f.kind, FindingKind::LeavingDewPointNotBelowRoom { .. }))
+            .any(|f| matches!(f.kind, FindingKind::CoilCannotDehumidify { .. }))
     );
 }
 

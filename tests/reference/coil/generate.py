@@ -899,8 +899,14 @@ def evaluate(A: dict, p: float, out_t: float, out_w: float) -> dict:
     for zrec in zone_out:
         if zrec["above_design_humidity"]:
             findings.append(f"room_above_design_humidity:{zrec['name']}")
-    if states["leaving"]["tdp_f"] >= states["room"]["tdp_f"] and not dry:
-        findings.append("leaving_dew_point_not_below_room")
+    # Choice 26: a wet coil whose leaving air is not drier than a served zone's
+    # design state cannot hold that zone at its design humidity. A zone with a
+    # latent load needs supply air strictly drier; one without, no wetter.
+    if not dry:
+        for z in zs:
+            w_off = flow["w_s"]
+            if (w_off >= z["w_design"]) if z["ql"] > 0.0 else (w_off > z["w_design"]):
+                findings.append(f"coil_cannot_dehumidify:{z['name']}")
     fan = A["fan"]
     chw_gpm = None if coil_in["chw_dt"] is None else q_c / (500.0 * coil_in["chw_dt"])
     face_v = None if coil_in["face_area"] is None else flow["cfm_s"] / coil_in["face_area"]

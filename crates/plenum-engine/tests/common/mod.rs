@@ -157,9 +157,10 @@ pub fn finding_names(
                 "room_above_design_humidity:{}",
                 zone_name(zone.0 as usize)
             )),
-            FindingKind::LeavingDewPointNotBelowRoom { .. } => {
-                out.push("leaving_dew_point_not_below_room".into())
-            }
+            FindingKind::CoilCannotDehumidify { zone, .. } => out.push(format!(
+                "coil_cannot_dehumidify:{}",
+                zone_name(zone.0 as usize)
+            )),
             _ => {}
         }
     }

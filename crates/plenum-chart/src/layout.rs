@@ -30,12 +30,20 @@ pub const LEGEND_DY: f64 = 66.0;
 /// The table's header.
 pub const TABLE_DY: f64 = 100.0;
 
-/// The box of a state label: name in bold, a space, the values.
-pub fn label_size(name: &str, values: &str) -> (f64, f64) {
-    let w = text::width(name, style::LABEL_SIZE, true)
-        + text::width(" ", style::LABEL_SIZE, false)
-        + text::width(values, style::LABEL_SIZE, false);
-    (w + 2.0 * PAD_X, style::LABEL_SIZE * 1.2 + 2.0 * PAD_Y)
+/// Line height of a state label, px.
+pub const LABEL_LINE: f64 = style::LABEL_SIZE * 1.2;
+
+/// The box of a state label: name in bold, a space, the values on one line;
+/// or, `stacked`, the name above the values.
+pub fn label_size(name: &str, values: &str, stacked: bool) -> (f64, f64) {
+    let n = text::width(name, style::LABEL_SIZE, true);
+    let v = text::width(values, style::LABEL_SIZE, false);
+    if stacked {
+        (n.max(v) + 2.0 * PAD_X, 2.0 * LABEL_LINE + 2.0 * PAD_Y)
+    } else {
+        let w = n + text::width(" ", style::LABEL_SIZE, false) + v;
+        (w + 2.0 * PAD_X, LABEL_LINE + 2.0 * PAD_Y)
+    }
 }
 
 /// Where the table's header sits (baseline).
@@ -184,9 +192,14 @@ pub fn place(c: &mut Chart) {
     // Greedy in several fixed orders, each followed by rounds in which every
     // label in turn is placed again against all the others; the layout of
     // least total cost wins (ties to the earlier order).
-    let sizes: Vec<(f64, f64)> = wanted
+    let sizes: Vec<[(f64, f64); 2]> = wanted
         .iter()
-        .map(|(_, name, values, _)| label_size(name, values))
+        .map(|(_, name, values, _)| {
+            [
+                label_size(name, values, false),
+                label_size(name, values, true),
+            ]
+        })
         .collect();
     let anchors: Vec<Pt> = wanted.iter().map(|w| w.3).collect();
     let n = wanted.len();
@@ -213,7 +226,10 @@ pub fn place(c: &mut Chart) {
     let boxes = best.map(|(_, b)| b).unwrap_or_else(|| vec![None; n]);
     let mut labels = Vec::new();
     for ((of, name, values, anchor), b) in wanted.into_iter().zip(boxes) {
-        let Some(Place { rect, gap, .. }) = b else {
+        let Some(Place {
+            rect, gap, stacked, ..
+        }) = b
+        else {
             continue;
         };
         labels.push(Label {
@@ -223,6 +239,7 @@ pub fn place(c: &mut Chart) {
             rect,
             anchor,
             leader: leader(anchor, &rect, gap),
+            stacked,
         });
     }
     obs.placed = labels.iter().map(|l| l.rect).collect();
@@ -326,20 +343,22 @@ fn with_others(anchors: &[Pt], boxes: &[Option<Place>], i: usize, obs: &mut Obst
     );
 }
 
-/// A candidate box: where, how far from its marker, and the rank of its
-/// direction (east first).
+/// A candidate box: where, how far from its marker, the rank of its
+/// direction (east first; two lines after one), and whether the name stands
+/// above the values.
 #[derive(Clone, Copy, Debug)]
 struct Place {
     rect: Rect,
     gap: f64,
     rank: f64,
+    stacked: bool,
 }
 
 /// Greedy placement in `order`, then three rounds of re-placing each label
 /// against all the others, keeping a new box only when it costs less.
 fn arrange(
     anchors: &[Pt],
-    sizes: &[(f64, f64)],
+    sizes: &[[(f64, f64); 2]],
     order: &[usize],
     plot: &Rect,
     obs: &mut Obstacles,
@@ -349,8 +368,7 @@ fn arrange(
         let mut moved = false;
         for &i in order {
             with_others(anchors, &boxes, i, obs);
-            let (w, h) = sizes[i];
-            let candidate = best_box(anchors[i], w, h, plot, obs);
+            let candidate = best_box(anchors[i], sizes[i], plot, obs);
             boxes[i] = match boxes[i] {
                 Some(old) if round > 0 => {
                     let old_cost = box_cost(&old, anchors[i], plot, obs);
@@ -404,53 +422,67 @@ fn free(r: &Rect, plot: &Rect, obs: &Obstacles, own: Option<usize>) -> bool {
             .all(|(i, poly)| Some(i) == own || !poly.hits(r))
 }
 
-fn best_box(c: Pt, w: f64, h: f64, plot: &Rect, obs: &Obstacles) -> Place {
+fn best_box(c: Pt, sizes: [(f64, f64); 2], plot: &Rect, obs: &Obstacles) -> Place {
     const GAPS: [f64; 9] = [8.0, 14.0, 22.0, 34.0, 50.0, 70.0, 95.0, 125.0, 160.0];
-    // (dx, dy): the side of the marker the box goes to; 0 centres it.
-    const DIRS: [(f64, f64); 8] = [
-        (1.0, 0.0),
-        (1.0, -1.0),
-        (1.0, 1.0),
-        (-1.0, 0.0),
-        (-1.0, -1.0),
-        (-1.0, 1.0),
-        (0.0, -1.0),
-        (0.0, 1.0),
+    // (dx, dy, align): the side of the marker the box goes to (0 centres
+    // it); above or below, `align` -1 ends the box just right of the
+    // marker, +1 starts it just left of it.
+    const DIRS: [(f64, f64, f64); 12] = [
+        (1.0, 0.0, 0.0),
+        (1.0, -1.0, 0.0),
+        (1.0, 1.0, 0.0),
+        (-1.0, 0.0, 0.0),
+        (-1.0, -1.0, 0.0),
+        (-1.0, 1.0, 0.0),
+        (0.0, -1.0, 0.0),
+        (0.0, 1.0, 0.0),
+        (0.0, -1.0, -1.0),
+        (0.0, -1.0, 1.0),
+        (0.0, 1.0, -1.0),
+        (0.0, 1.0, 1.0),
     ];
+    /// What a second line costs, against moving the box further away.
+    const STACK_RANK: f64 = 25.0;
     let mut best: Option<(f64, Place)> = None;
-    for gap in GAPS {
-        for (di, (dx, dy)) in DIRS.iter().enumerate() {
-            let g = if *dx != 0.0 && *dy != 0.0 {
-                gap * 0.7
-            } else {
-                gap
-            };
-            let x0 = match *dx {
-                d if d > 0.0 => c.x + g,
-                d if d < 0.0 => c.x - g - w,
-                _ => c.x - w / 2.0,
-            };
-            let y0 = match *dy {
-                d if d > 0.0 => c.y + g,
-                d if d < 0.0 => c.y - g - h,
-                _ => c.y - h / 2.0,
-            };
-            let place = Place {
-                rect: Rect::at(x0, y0, w, h),
-                gap,
-                rank: di as f64,
-            };
-            let cost = box_cost(&place, c, plot, obs);
-            if best.as_ref().is_none_or(|(b, _)| cost < *b) {
-                best = Some((cost, place));
+    for (stacked, (w, h)) in [(false, sizes[0]), (true, sizes[1])] {
+        for gap in GAPS {
+            for (di, (dx, dy, align)) in DIRS.iter().enumerate() {
+                let g = if *dx != 0.0 && *dy != 0.0 {
+                    gap * 0.7
+                } else {
+                    gap
+                };
+                let x0 = match (*dx, *align) {
+                    (d, _) if d > 0.0 => c.x + g,
+                    (d, _) if d < 0.0 => c.x - g - w,
+                    (_, a) if a < 0.0 => c.x + 14.0 - w,
+                    (_, a) if a > 0.0 => c.x - 14.0,
+                    _ => c.x - w / 2.0,
+                };
+                let y0 = match *dy {
+                    d if d > 0.0 => c.y + g,
+                    d if d < 0.0 => c.y - g - h,
+                    _ => c.y - h / 2.0,
+                };
+                let place = Place {
+                    rect: Rect::at(x0, y0, w, h),
+                    gap,
+                    rank: di as f64 + if stacked { STACK_RANK } else { 0.0 },
+                    stacked,
+                };
+                let cost = box_cost(&place, c, plot, obs);
+                if best.as_ref().is_none_or(|(b, _)| cost < *b) {
+                    best = Some((cost, place));
+                }
             }
         }
     }
     best.map_or(
         Place {
-            rect: Rect::at(c.x, c.y, w, h),
+            rect: Rect::at(c.x, c.y, sizes[0].0, sizes[0].1),
             gap: 0.0,
             rank: 0.0,
+            stacked: false,
         },
         |(_, p)| p,
     )

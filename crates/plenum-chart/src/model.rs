@@ -313,6 +313,8 @@ pub struct Label {
     pub anchor: Pt,
     /// A leader from the marker to the box, when the box is not beside it.
     pub leader: Option<(Pt, Pt)>,
+    /// The name stands above the values (a wide label in a narrow place).
+    pub stacked: bool,
 }
 
 /// What a curve label names.
@@ -643,7 +645,7 @@ pub fn build(
     }
     let (enthalpy_lines, enthalpy_step) = enthalpy_lines(ps, &frame)?;
     let (db_grid, w_grid) = grid(ps, &frame, &x, &y)?;
-    let markers = markers(&states, &frame, units);
+    let markers = markers(&states, &frame, units, case.outdoor_air_fraction);
     let legs = legs(case, &states, adp.as_ref(), &frame);
     let title = title(site, ahu, case, subject, units, adp.as_ref());
     let table = table(&states, adp.as_ref(), units);
@@ -890,9 +892,17 @@ fn fmt_ip(m: Measure, v: f64, units: UnitSystem) -> String {
     }
 }
 
-fn markers(states: &[State], frame: &Frame, units: UnitSystem) -> Vec<Marker> {
+/// The states' markers. A 100 % outdoor-air unit exhausts its return air,
+/// and a unit without outdoor air draws none: their names say so, as no
+/// mixing leg is drawn from that state.
+fn markers(states: &[State], frame: &Frame, units: UnitSystem, oa_fraction: f64) -> Vec<Marker> {
     let tol_x = (frame.x.1 - frame.x.0) * 1e-3;
     let tol_y = (frame.y.1 - frame.y.0) * 1e-3;
+    let name = |k: StateKind| match k {
+        StateKind::Return if oa_fraction >= 1.0 - 1e-9 => "Return (exhausted)",
+        StateKind::Outdoor if oa_fraction <= 1e-9 => "Outdoor (none taken)",
+        k => k.name(),
+    };
     let mut out: Vec<Marker> = Vec::new();
     for s in states {
         let same = out
@@ -904,14 +914,14 @@ fn markers(states: &[State], frame: &Frame, units: UnitSystem) -> Vec<Marker> {
                 m.name = m
                     .kinds
                     .iter()
-                    .map(|k| k.name())
+                    .map(|k| name(*k))
                     .collect::<Vec<_>>()
                     .join(" = ");
             }
             None => out.push(Marker {
                 kinds: vec![s.kind],
                 at: s.at,
-                name: s.kind.name().to_string(),
+                name: name(s.kind).to_string(),
                 values: format!(
                     "{} · {}",
                     fmt_t(s.values.tdb, units),

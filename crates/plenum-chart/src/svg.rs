@@ -364,17 +364,34 @@ pub fn render(c: &Chart) -> String {
         let r = l.rect;
         let _ = writeln!(
             s,
-            "<rect class=\"lbox\" x=\"{}\" y=\"{}\" width=\"{}\" height=\"{}\" rx=\"3\"/>\
-             <text class=\"ltext\" x=\"{}\" y=\"{}\"><tspan class=\"lname\">{}</tspan> {}</text>",
+            "<rect class=\"lbox\" x=\"{}\" y=\"{}\" width=\"{}\" height=\"{}\" rx=\"3\"/>",
             n(r.x0),
             n(r.y0),
             n(r.width()),
             n(r.height()),
-            n(r.x0 + 5.0),
-            n(r.y1 - 6.5),
-            esc(&l.name),
-            esc(&l.values)
         );
+        let (x, y) = (r.x0 + 5.0, r.y0 + 14.9);
+        if l.stacked {
+            let _ = writeln!(
+                s,
+                "<text class=\"ltext\" x=\"{x}\" y=\"{y}\"><tspan class=\"lname\">{}</tspan>\
+                 <tspan x=\"{x}\" y=\"{}\">{}</tspan></text>",
+                esc(&l.name),
+                n(r.y0 + 14.9 + layout::LABEL_LINE),
+                esc(&l.values),
+                x = n(x),
+                y = n(y),
+            );
+        } else {
+            let _ = writeln!(
+                s,
+                "<text class=\"ltext\" x=\"{}\" y=\"{}\"><tspan class=\"lname\">{}</tspan> {}</text>",
+                n(x),
+                n(y),
+                esc(&l.name),
+                esc(&l.values)
+            );
+        }
     }
     let _ = writeln!(s, "</g>");
 

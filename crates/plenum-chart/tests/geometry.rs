@@ -533,3 +533,57 @@ fn a_pressure_without_a_chart_is_an_error_not_a_panic() {
         );
     }
 }
+
+#[test]
+fn a_dedicated_outdoor_air_unit_with_its_own_fan() {
+    // 100 % outdoor air: nothing mixes; the outdoor-air fan heats the intake
+    // (sensible only), the return air is exhausted.
+    let c = design_chart(
+        "site { elevation 800 ft; cooling 92 °F db, 76 °F wb }\n\
+         zone a { area 2_000 ft²; people 60; use classroom; sensible 30 kBtu/h; latent 9 kBtu/h }\n\
+         ahu doas { serves a; outdoor_air 100 %; outdoor_fan_rise 1.5 °F; supply_temp 55 °F }\n",
+        UnitSystem::Ip,
+    );
+    let kinds: Vec<LegKind> = c.legs.iter().map(|l| l.kind).collect();
+    assert_eq!(
+        kinds,
+        [
+            LegKind::OutdoorFan,
+            LegKind::Coil,
+            LegKind::CoilToAdp,
+            LegKind::SupplyHeat,
+            LegKind::RoomLine,
+            LegKind::ReturnHeat
+        ]
+    );
+    let fan = c.legs[0];
+    assert_eq!(fan.from.y, fan.to.y);
+    assert!((fan.to.x - fan.from.x - 1.5).abs() < 1e-9);
+    assert!(c.markers.iter().any(|m| m.name == "Return (exhausted)"));
+    assert!(
+        c.markers
+            .iter()
+            .any(|m| m.name == "After OA fan = Mixed = Entering coil"),
+        "{:?}",
+        c.markers.iter().map(|m| &m.name).collect::<Vec<_>>()
+    );
+    assert_labels_clear("doas", "doas", UnitSystem::Ip, &c);
+}
+
+#[test]
+fn a_unit_without_outdoor_air_mixes_nothing() {
+    let c = design_chart(
+        "site { elevation 0 ft; cooling 95 °F db, 75 °F wb }\n\
+         zone a { area 1_000 ft²; people 5; use office; sensible 20 kBtu/h; latent 3 kBtu/h }\n\
+         ahu fc { serves a; outdoor_air 0 cfm }\n",
+        UnitSystem::Si,
+    );
+    assert!(c.legs.iter().all(|l| l.kind != LegKind::Mixing));
+    assert!(c.markers.iter().any(|m| m.name == "Outdoor (none taken)"));
+    assert!(
+        c.markers
+            .iter()
+            .any(|m| m.name.starts_with("Return = Mixed"))
+    );
+    assert_labels_clear("fc", "fc", UnitSystem::Si, &c);
+}

@@ -118,7 +118,11 @@ fn every_chart_is_well_formed_svg_with_its_parts() {
             })
             .collect();
         for l in &c.labels {
-            let want = format!("{} {}", l.name, l.values);
+            let want = if l.stacked {
+                format!("{}{}", l.name, l.values)
+            } else {
+                format!("{} {}", l.name, l.values)
+            };
             assert!(texts.contains(&want), "{ex} {ahu}: no `{want}`");
         }
         for t in [&c.x.title, &c.y.title, &c.title.heading, &c.title.caution] {

@@ -587,3 +587,41 @@ fn a_unit_without_outdoor_air_mixes_nothing() {
     );
     assert_labels_clear("fc", "fc", UnitSystem::Si, &c);
 }
+
+#[test]
+fn a_sweep_of_climates_and_elevations_charts_cleanly() {
+    // Hot-humid, hot-dry and mild outdoor states at three elevations, with
+    // a humid room and a dry one: every chart builds, and its labels keep
+    // clear of each other, the markers and the saturation curve.
+    let mut n = 0;
+    for elevation in ["0 ft", "4_500 ft", "9_000 ft"] {
+        for outdoor in [
+            "95 °F db, 80 °F wb",
+            "108 °F db, 66 °F wb",
+            "82 °F db, 72 °F wb",
+        ] {
+            for (latent, oa) in [("9 kBtu/h", "ventilation"), ("0.5 kBtu/h", "40 %")] {
+                let text = format!(
+                    "site {{ elevation {elevation}; cooling {outdoor} }}\n\
+                     zone a {{ area 2_000 ft²; people 30; use classroom; sensible 40 kBtu/h; latent {latent} }}\n\
+                     ahu u {{ serves a; outdoor_air {oa} }}\n"
+                );
+                let (design, diags) = plenum_model::lower_text(&text);
+                assert!(diags.is_empty(), "{diags:?}");
+                let eval = plenum_engine::evaluate(&design);
+                if eval.ahus[0].result.is_err() {
+                    continue;
+                }
+                // The unit systems take turns, to keep the test quick.
+                let units = [UnitSystem::Ip, UnitSystem::Si][n % 2];
+                let c = plenum_chart::chart_of(&design, &eval, 0, units).unwrap();
+                let ctx = format!("{elevation} {outdoor} {latent} {oa}");
+                assert_labels_clear(&ctx, "u", units, &c);
+                let svg = plenum_chart::render_svg(&c);
+                assert!(roxmltree::Document::parse(&svg).is_ok());
+                n += 1;
+            }
+        }
+    }
+    assert!(n >= 12, "only {n} charts");
+}

@@ -88,6 +88,10 @@ pub(crate) struct Lowering<'a> {
     effective: HashMap<(FileId, u32), Effective<'a>>,
     like_stack: Vec<(FileId, u32)>,
     pub properties: Vec<PropertyInfo>,
+    /// Where each recorded property is in `properties`, so that recording
+    /// stays linear in the design (a search was quadratic: minutes for a
+    /// campus of 40,000 zones).
+    property_at: HashMap<Loc, usize>,
 }
 
 pub(crate) struct Lowered {
@@ -111,6 +115,7 @@ impl<'a> Lowering<'a> {
             effective: HashMap::new(),
             like_stack: Vec::new(),
             properties: Vec::new(),
+            property_at: HashMap::new(),
         };
         let design = l.lower();
         let mut diags = l.ev.diags;
@@ -807,12 +812,15 @@ impl<'a> Lowering<'a> {
             return;
         };
         let l = p.loc();
-        if let Some(existing) = self.properties.iter_mut().find(|i| i.loc == l) {
-            if existing.quantity.is_none() {
+        if let Some(&i) = self.property_at.get(&l) {
+            if let Some(existing) = self.properties.get_mut(i)
+                && existing.quantity.is_none()
+            {
                 existing.quantity = quantity;
             }
             return;
         }
+        self.property_at.insert(l, self.properties.len());
         self.properties.push(PropertyInfo {
             loc: l,
             key_loc: loc(p.file, p.prop.key.span),

@@ -400,3 +400,29 @@ fn project_root_is_the_folder_with_plenum_toml() {
     assert_eq!(m.project_root, Path::new("/w/campus"));
     assert_eq!(codes(&m), vec!["use-outside-project"]);
 }
+
+/// Hover's record of properties holds each written property once, with its
+/// quantity, however many `like` blocks inherit it.
+#[test]
+fn an_inherited_property_is_recorded_once_for_hover() {
+    let text = "site { cooling 94 °F db, 75 °F wb }\n\
+                zone a { area 100 ft²; sensible 2 kBtu/h }\n\
+                zone b like a {}\n\
+                zone c like a { area 200 ft² }\n\
+                zone d like b {}\n\
+                ahu u { serves a, b, c, d }\n";
+    let model = Model::build(&MemoryFs::new(), Path::new("d.plenum"), text.to_string());
+    assert!(model.diagnostics.is_empty(), "{:#?}", model.diagnostics);
+    let areas: Vec<_> = model
+        .properties
+        .iter()
+        .filter(|p| p.def.name == "area")
+        .collect();
+    assert_eq!(areas.len(), 2, "{areas:#?}");
+    assert!(areas.iter().all(|p| p.quantity.is_some()));
+    let mut locs: Vec<_> = model.properties.iter().map(|p| p.loc).collect();
+    let n = locs.len();
+    locs.sort();
+    locs.dedup();
+    assert_eq!(locs.len(), n, "every property once");
+}

@@ -13,7 +13,7 @@ use plenum_units::{Dimension, Measure, Unit, UnitSystem, catalog};
 
 use crate::Span;
 use crate::hover::key_markdown;
-use crate::syntax_at::{self, kind_of, value_names};
+use crate::syntax_at::{self, kind_of};
 use crate::world::{Analysis, FileCtx};
 
 #[derive(Clone, Copy, Debug, PartialEq, Eq, Hash)]
@@ -273,8 +273,9 @@ impl Analysis {
         };
         match def.value {
             ValueKind::ZoneList => {
-                let listed: Vec<String> = current_property_names(block, text, offset as u32);
-                let listed: Vec<&str> = listed.iter().map(String::as_str).collect();
+                // The names already written on the line (the value may run
+                // on past a trailing comma while it is being typed).
+                let listed: Vec<&str> = before[1..].to_vec();
                 names(&ctx, SymbolKind::Zone, &listed, &mut out, replace);
             }
             ValueKind::Category if before.len() == 1 => {
@@ -395,23 +396,6 @@ fn given_keys<'a>(block: &Block, text: &'a str) -> Vec<&'a str> {
             _ => None,
         })
         .collect()
-}
-
-/// The names already in the property at `offset` (for `serves`).
-fn current_property_names(block: &Block, text: &str, offset: u32) -> Vec<String> {
-    let mut names = Vec::new();
-    for p in block.properties() {
-        if p.span.touches(offset) {
-            let mut v = Vec::new();
-            value_names(&p.value, &mut v);
-            names.extend(
-                v.iter()
-                    .filter(|n| !n.span.touches(offset))
-                    .map(|n| n.text(text).to_string()),
-            );
-        }
-    }
-    names
 }
 
 fn names(

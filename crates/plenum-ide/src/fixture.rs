@@ -126,11 +126,12 @@ impl Fixture {
                 .filter(|(p, _)| p.extension().is_some_and(|e| e == "plenum"))
                 .map(|(p, _)| p.clone()),
         );
-        let open = self
-            .cursor
-            .as_ref()
-            .map(|(p, _)| p.clone())
-            .or_else(|| self.files.first().map(|(p, _)| p.clone()));
+        let open = self.cursor.as_ref().map(|(p, _)| p.clone()).or_else(|| {
+            self.files
+                .iter()
+                .find(|(p, _)| p.extension().is_some_and(|e| e == "plenum"))
+                .map(|(p, _)| p.clone())
+        });
         if let Some(p) = open
             && let Some(t) = self.text(&p)
         {
@@ -139,12 +140,14 @@ impl Fixture {
         host
     }
 
-    /// The cursor, or a panic-free default at the start of the first file.
+    /// The cursor, or the start of the first design file.
     pub fn position(&self) -> (PathBuf, u32) {
         self.cursor.clone().unwrap_or_else(|| {
             (
                 self.files
-                    .first()
+                    .iter()
+                    .find(|(p, _)| p.extension().is_some_and(|e| e == "plenum"))
+                    .or(self.files.first())
                     .map(|(p, _)| p.clone())
                     .unwrap_or_else(|| PathBuf::from(DEFAULT_PATH)),
                 0,

@@ -47,10 +47,15 @@ impl AnalysisHost {
         }
     }
 
-    /// Open a document, or replace its text.
+    /// Open a document, or replace its text. An open `plenum.toml` is read
+    /// as the project's settings (every design is re-checked), never as a design.
     pub fn set_document(&mut self, path: &Path, text: String) {
         let path = normalize(path);
-        self.changed(&path);
+        if is_config(&path) {
+            self.invalidate_all();
+        } else {
+            self.changed(&path);
+        }
         self.docs.insert(path, text);
     }
 
@@ -59,7 +64,11 @@ impl AnalysisHost {
     pub fn close_document(&mut self, path: &Path) {
         let path = normalize(path);
         if self.docs.remove(&path).is_some() {
-            self.changed(&path);
+            if is_config(&path) {
+                self.invalidate_all();
+            } else {
+                self.changed(&path);
+            }
         }
     }
 
@@ -89,7 +98,7 @@ impl AnalysisHost {
     /// the designs that could not find a `use`d file.
     pub fn file_changed_on_disk(&mut self, path: &Path) {
         let path = normalize(path);
-        if path.file_name().is_some_and(|n| n == CONFIG_FILE) {
+        if is_config(&path) {
             self.invalidate_all();
             return;
         }
@@ -141,7 +150,7 @@ impl AnalysisHost {
         };
         let mut candidates: BTreeMap<PathBuf, String> = BTreeMap::new();
         for path in self.docs.keys().chain(self.disk_files.iter()) {
-            if candidates.contains_key(path) {
+            if candidates.contains_key(path) || is_config(path) {
                 continue;
             }
             if let Some(text) = read_text(&fs, path) {
@@ -201,6 +210,10 @@ impl AnalysisHost {
         self.snapshot = Some(snapshot.clone());
         snapshot
     }
+}
+
+fn is_config(path: &Path) -> bool {
+    path.file_name().is_some_and(|n| n == CONFIG_FILE)
 }
 
 fn read_text(fs: &dyn FileSystem, path: &Path) -> Option<String> {

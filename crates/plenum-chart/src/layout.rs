@@ -51,14 +51,19 @@ pub fn table_top() -> f64 {
     style::PLOT_Y1 + TABLE_DY
 }
 
-/// The caution's baseline.
+/// The caution's baseline: the last line of the title block, in small print.
 pub fn caution_baseline(c: &Chart) -> f64 {
-    table_top() + style::ROW_H * c.table.rows.len() as f64 + 30.0
+    title_baseline(c.title.lines.len()) - 2.0
 }
 
-/// The page height.
+/// The baseline of title line `i` (0 is the first line under the heading).
+pub fn title_baseline(i: usize) -> f64 {
+    style::MARGIN + 42.0 + 18.0 * i as f64
+}
+
+/// The page height: the table's last row and the margin.
 pub fn page_height(c: &Chart) -> f64 {
-    caution_baseline(c) + style::MARGIN - 8.0
+    table_top() + style::ROW_H * c.table.rows.len() as f64 + style::MARGIN
 }
 
 /// A marker's disc.

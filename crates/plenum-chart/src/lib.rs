@@ -22,9 +22,9 @@
 //!   labels overlap neither each other, nor a marker, nor the saturation
 //!   curve (see [`layout`]);
 //! * a title with the air handler, the site pressure (and elevation), the
-//!   governing case and the coil figures; a legend; a table of every state
-//!   (dry bulb, wet bulb, dew point, humidity ratio, enthalpy, RH); and a
-//!   caution in small print.
+//!   governing case, the coil figures and a caution in small print; a
+//!   legend; and a table of every state (dry bulb, wet bulb, dew point,
+//!   humidity ratio, enthalpy, RH).
 //!
 //! The axes fit every state's dry bulb and dew point and the apparatus dew
 //! point with a margin, so the saturation curve beside each state is in

@@ -344,7 +344,7 @@ pub struct Title {
     pub heading: String,
     /// Site, governing case, coil and airflow, one line each.
     pub lines: Vec<String>,
-    /// The caution, in small print at the foot.
+    /// The caution, in small print under the other title lines.
     pub caution: String,
 }
 

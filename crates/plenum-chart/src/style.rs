@@ -63,9 +63,9 @@ pub const PLOT_X0: f64 = 44.0;
 /// Right edge of the plot (the humidity-ratio axis).
 pub const PLOT_X1: f64 = 900.0;
 /// Top of the plot.
-pub const PLOT_Y0: f64 = 128.0;
+pub const PLOT_Y0: f64 = 148.0;
 /// Bottom of the plot (the dry-bulb axis).
-pub const PLOT_Y1: f64 = 648.0;
+pub const PLOT_Y1: f64 = 668.0;
 
 /// Heading size, px.
 pub const HEADING_SIZE: f64 = 21.0;

@@ -170,10 +170,17 @@ pub fn render(c: &Chart) -> String {
             s,
             "<text class=\"sub\" x=\"{}\" y=\"{}\">{}</text>",
             n(st::MARGIN),
-            n(st::MARGIN + 42.0 + 18.0 * i as f64),
+            n(layout::title_baseline(i)),
             esc(line)
         );
     }
+    let _ = writeln!(
+        s,
+        "<text class=\"caution\" x=\"{}\" y=\"{}\">{}</text>",
+        n(st::MARGIN),
+        n(layout::caution_baseline(c)),
+        esc(&c.title.caution)
+    );
     let _ = writeln!(s, "</g>");
 
     // The air domain: below saturation, inside the axes.
@@ -397,13 +404,6 @@ pub fn render(c: &Chart) -> String {
 
     legend(&mut s, c);
     table(&mut s, c);
-    let _ = writeln!(
-        s,
-        "<text class=\"caution\" x=\"{}\" y=\"{}\">{}</text>",
-        n(st::MARGIN),
-        n(layout::caution_baseline(c)),
-        esc(&c.title.caution)
-    );
     s.push_str("</svg>\n");
     s
 }

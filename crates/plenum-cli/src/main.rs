@@ -6,6 +6,7 @@
 
 mod air;
 mod baseline;
+mod chart;
 mod check;
 mod diag;
 mod explain;
@@ -44,6 +45,8 @@ enum Command {
     Fmt(fmt::FmtArgs),
     /// Print the coil schedule, zones, assumptions and findings of each design.
     Report(report::ReportArgs),
+    /// Draw a psychrometric chart (SVG) of each air handler's process.
+    Chart(chart::ChartArgs),
 }
 
 /// The unit system of printed values.
@@ -79,6 +82,7 @@ fn main() -> ExitCode {
         Command::Air(args) => air::run(&args),
         Command::Fmt(args) => fmt::run(&args),
         Command::Report(args) => report::run(&args),
+        Command::Chart(args) => chart::run(&args),
     };
     match result {
         Ok(code) => code,

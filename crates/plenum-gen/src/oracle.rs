@@ -8,7 +8,7 @@
 
 use std::path::Path;
 
-use plenum_model::{MemoryFs, Model};
+use plenum_model::{Loc, MemoryFs, Model};
 use plenum_syntax::{
     Block, Body, Element, Elements, Entry, Expr, Item, Let, Like, Name, Property, RangeEnd,
     SourceFile, Span, StrLit, Use, Value, With,
@@ -64,27 +64,66 @@ pub fn split_analysis_input(data: &[u8]) -> (String, String) {
 /// The whole analysis on two files — the root at [`ANALYSIS_ROOT`] and a
 /// second file at [`ANALYSIS_OTHER`] that it may `use` — must not panic, and
 /// every number of the engine's evaluation must be finite
-/// ([`plenum_engine::Evaluation::first_non_finite`]). The model's
-/// diagnostics must point inside the file they name.
+/// ([`plenum_engine::Evaluation::first_non_finite`]). Every location the
+/// model hands on — diagnostics with their related places and fixes,
+/// symbols and references, hover's properties, the design's zones and air
+/// handlers — must lie inside the file it names, on character boundaries.
 pub fn check_analysis(root: &str, other: &str) -> Result<(), String> {
     let mut fs = MemoryFs::new();
     fs.insert(Path::new(ANALYSIS_DIR).join("plenum.toml"), "");
     fs.insert(ANALYSIS_OTHER, other.as_bytes());
     let model = Model::build(&fs, Path::new(ANALYSIS_ROOT), root.to_string());
+    let mut locs: Vec<(&str, Loc)> = Vec::new();
     for d in &model.diagnostics {
-        let Some(file) = model.file(d.loc.file) else {
-            return Err(format!("diagnostic {:?} names no loaded file", d.code));
+        locs.push(("diagnostic", d.loc));
+        locs.extend(d.related.iter().map(|(l, _)| ("related", *l)));
+        if let Some(fix) = &d.fix {
+            locs.extend(fix.edits.iter().map(|e| ("fix edit", e.loc)));
+        }
+    }
+    for def in &model.symbols.defs {
+        locs.push(("symbol", def.loc));
+        locs.push(("symbol name", def.name_loc));
+    }
+    for r in &model.symbols.refs {
+        if r.def >= model.symbols.defs.len() {
+            return Err(format!(
+                "a reference names symbol {} of {}",
+                r.def,
+                model.symbols.defs.len()
+            ));
+        }
+        locs.push(("reference", r.loc));
+    }
+    for p in &model.properties {
+        locs.push(("property", p.loc));
+        locs.push(("property key", p.key_loc));
+    }
+    for z in &model.design.zones {
+        locs.push(("zone", z.loc));
+        locs.push(("zone name", z.name_loc));
+    }
+    for a in &model.design.ahus {
+        locs.push(("ahu", a.loc));
+        locs.push(("ahu name", a.name_loc));
+        locs.extend(a.serves.iter().map(|s| ("serves", s.loc)));
+    }
+    for (what, l) in locs {
+        let Some(file) = model.file(l.file) else {
+            return Err(format!(
+                "{what} location names file {:?}, not loaded",
+                l.file
+            ));
         };
-        let (start, end) = (d.loc.span.start as usize, d.loc.span.end as usize);
+        let (start, end) = (l.span.start as usize, l.span.end as usize);
         if start > end
             || end > file.text.len()
             || !file.text.is_char_boundary(start)
             || !file.text.is_char_boundary(end)
         {
             return Err(format!(
-                "diagnostic {:?} has span {:?}, not inside its file of {} bytes",
-                d.code,
-                d.loc.span,
+                "{what} span {:?} is not inside its file of {} bytes",
+                l.span,
                 file.text.len()
             ));
         }

@@ -47,6 +47,8 @@ enum Command {
     Report(report::ReportArgs),
     /// Draw a psychrometric chart (SVG) of each air handler's process.
     Chart(chart::ChartArgs),
+    /// Start the language server on standard input and output.
+    Lsp,
 }
 
 /// The unit system of printed values.
@@ -83,6 +85,7 @@ fn main() -> ExitCode {
         Command::Fmt(args) => fmt::run(&args),
         Command::Report(args) => report::run(&args),
         Command::Chart(args) => chart::run(&args),
+        Command::Lsp => Ok(plenum_lsp::run()),
     };
     match result {
         Ok(code) => code,

@@ -4,8 +4,8 @@
 #
 #   bash editors/neovim/test/run.sh
 #
-# PLENUM_LSP_CMD overrides the server command (default: the plenum-lsp-test
-# binary, built here; `plenum lsp` once the CLI starts the server);
+# PLENUM_LSP_CMD overrides the server command (default: `plenum lsp` of the
+# CLI, built here);
 # PLENUM_EXAMPLE overrides the design opened (default: examples/library.plenum).
 # Prints `neovim: N passed, N failed` and exits non-zero on a failure.
 set -euo pipefail
@@ -19,9 +19,9 @@ if ! command -v nvim >/dev/null 2>&1; then
 fi
 
 if [ -z "${PLENUM_LSP_CMD:-}" ]; then
-  (cd "$repo" && cargo build --quiet -p plenum-lsp --bin plenum-lsp-test)
+  (cd "$repo" && cargo build --quiet -p plenum-cli --bin plenum)
   target="${CARGO_TARGET_DIR:-$repo/target}"
-  PLENUM_LSP_CMD="$target/debug/plenum-lsp-test"
+  PLENUM_LSP_CMD="$target/debug/plenum lsp"
 fi
 export PLENUM_LSP_CMD
 export PLENUM_EXAMPLE="${PLENUM_EXAMPLE:-$repo/examples/library.plenum}"

@@ -26,6 +26,7 @@ pub use lexer::{
     Lexed, MAX_NESTING, MAX_UNIT_GROUPS, TokKind, Token, lex, normalize, normalize_in_place,
 };
 pub use span::{ColumnUnit, LineCol, LineIndex, Span};
+pub use values::MAX_OPERATORS;
 
 /// The result of parsing one file.
 #[derive(Clone, Debug)]

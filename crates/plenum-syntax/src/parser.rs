@@ -20,7 +20,7 @@ use crate::ast::*;
 use crate::error::{SyntaxError, SyntaxErrorKind};
 use crate::lexer::{TokKind, Token};
 use crate::span::Span;
-use crate::values::{Cur, string_lit};
+use crate::values::{Cur, MAX_OPERATORS, string_lit};
 
 /// What the parser looked for, named for messages.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
@@ -59,6 +59,9 @@ pub(crate) enum Custom {
     InvalidEscape,
     /// A `key value` line outside any block; the span is the key.
     PropertyOutsideBlock,
+    /// More than `MAX_OPERATORS` operators in one value; the span is the
+    /// first operator past the limit.
+    TooManyOperators,
 }
 
 /// A parse error cheap enough to create on every failed alternative: the
@@ -214,6 +217,13 @@ impl PErr {
                     "number is too large".to_string(),
                 )
                 .with_help("numbers must be below about 1.8e308"),
+                Custom::TooManyOperators => SyntaxError::new(
+                    SyntaxErrorKind::NestingTooDeep,
+                    self.span,
+                    format!("a value may hold at most {MAX_OPERATORS} operators"),
+                )
+                .with_label("one operator too many")
+                .with_help("split the value into `let`s"),
                 Custom::InvalidEscape => SyntaxError::new(
                     SyntaxErrorKind::InvalidEscape,
                     self.span,

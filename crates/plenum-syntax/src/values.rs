@@ -20,7 +20,16 @@ pub(crate) struct Cur<'a> {
     pub eoi: Span,
     /// Errors that do not stop the parse (a number out of range, a bad escape).
     pub soft: Vec<PErr>,
+    /// Operators (binary and signs) read so far in the current value, to
+    /// bound its tree's depth by [`MAX_OPERATORS`].
+    ops: usize,
 }
+
+/// The most operators (`+ - * / ·` and signs) one value may hold. Every later
+/// stage walks a value's tree recursively (evaluation, formatting, hover), so
+/// a bound on its depth keeps any input from overflowing their stacks; real
+/// values hold a handful.
+pub const MAX_OPERATORS: usize = 256;
 
 fn bit(k: TokKind) -> u64 {
     1 << (k as u64)
@@ -34,6 +43,7 @@ impl<'a> Cur<'a> {
             pos,
             eoi,
             soft: Vec::new(),
+            ops: 0,
         }
     }
 
@@ -122,6 +132,7 @@ impl<'a> Cur<'a> {
 
     /// Elements, then `with KEY VALUE` clauses.
     pub fn value(&mut self) -> Result<Value, PErr> {
+        self.ops = 0;
         let elements = self.elements()?;
         let mut span = elements.first.span.cover(elements.last().span);
         let mut with = Vec::new();
@@ -215,6 +226,7 @@ impl<'a> Cur<'a> {
             if prec <= min_prec {
                 break;
             }
+            self.count_operator()?;
             let op_span = self.bump();
             let rhs = self.expr(prec)?;
             lhs = Expr::Binary(Box::new(Binary {
@@ -233,11 +245,13 @@ impl<'a> Cur<'a> {
     fn unary(&mut self) -> Result<Expr, PErr> {
         let mut ops = Vec::new();
         loop {
-            match self.peek() {
-                Some(TokKind::Minus) => ops.push((UnaryOp::Neg, self.bump())),
-                Some(TokKind::Plus) => ops.push((UnaryOp::Pos, self.bump())),
+            let op = match self.peek() {
+                Some(TokKind::Minus) => UnaryOp::Neg,
+                Some(TokKind::Plus) => UnaryOp::Pos,
                 _ => break,
-            }
+            };
+            self.count_operator()?;
+            ops.push((op, self.bump()));
         }
         let mut e = self.atom()?;
         for (op, op_span) in ops.into_iter().rev() {
@@ -249,6 +263,16 @@ impl<'a> Cur<'a> {
             }));
         }
         Ok(e)
+    }
+
+    /// Count one more operator of the current value; past [`MAX_OPERATORS`]
+    /// the value is an error at that operator.
+    fn count_operator(&mut self) -> Result<(), PErr> {
+        if self.ops >= MAX_OPERATORS {
+            return Err(PErr::custom(self.span(), Custom::TooManyOperators));
+        }
+        self.ops += 1;
+        Ok(())
     }
 
     fn atom(&mut self) -> Result<Expr, PErr> {

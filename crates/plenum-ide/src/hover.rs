@@ -7,7 +7,7 @@ use std::path::Path;
 use plenum_model::SymbolKind;
 use plenum_model::keys::{BlockKind, KeyDef, ValueKind, key_def};
 use plenum_syntax::{Block, Number, Property};
-use plenum_units::{Quantity, Unit, UnitSystem, format_auto};
+use plenum_units::{Measure, Quantity, Unit, UnitSystem, format_auto};
 
 use crate::report;
 use crate::syntax_at::{self, Node, kind_of};
@@ -186,10 +186,19 @@ fn symbol_hover(ctx: &FileCtx<'_>, span: Span) -> Option<Hover> {
         SymbolKind::Let => {
             let file = ctx.design.model.file(def.loc.file)?;
             let src = def.loc.span.text(&file.text);
-            Some(Hover {
-                span,
-                markdown: format!("```plenum\n{src}\n```"),
-            })
+            let mut markdown = format!("```plenum\n{src}\n```");
+            if let Some(q) = ctx
+                .design
+                .model
+                .lets
+                .iter()
+                .find(|l| l.name_loc == def.name_loc)
+                .and_then(|l| l.quantity)
+            {
+                markdown.push_str("\n\n");
+                markdown.push_str(&both_systems(&def.name, &q, ctx.design.system, None));
+            }
+            Some(Hover { span, markdown })
         }
     }
 }
@@ -199,12 +208,23 @@ fn property_quantity(ctx: &FileCtx<'_>, p: &Property) -> Option<String> {
     let loc = ctx.loc(p.span);
     let info = ctx.design.model.properties.iter().find(|i| i.loc == loc)?;
     let q = info.quantity?;
-    Some(both_systems(info.def.name, &q, ctx.design.system))
+    Some(both_systems(
+        info.def.name,
+        &q,
+        ctx.design.system,
+        info.def.measure(),
+    ))
 }
 
-fn both_systems(what: &str, q: &Quantity, system: UnitSystem) -> String {
-    let here = format_auto(q, system);
-    let there = format_auto(q, system.other());
+/// A value in the project's units and the other system, in the key's
+/// measure when it has one (a rated capacity in tons), else by dimension.
+fn both_systems(what: &str, q: &Quantity, system: UnitSystem, measure: Option<Measure>) -> String {
+    let show = |sys| match measure {
+        Some(m) if m.dimension() == q.dimension() => m.format(q, sys),
+        _ => format_auto(q, sys),
+    };
+    let here = show(system);
+    let there = show(system.other());
     if here == there {
         format!("`{what}` = {here}")
     } else {

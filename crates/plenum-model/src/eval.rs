@@ -155,6 +155,25 @@ impl<'a> Evaluator<'a> {
         self.lets.get(name).map(|e| e.symbol)
     }
 
+    /// Every `let` with its value (after [`Evaluator::evaluate_all_lets`]),
+    /// in source order; `None` for a compound or invalid value.
+    pub fn let_values(&self) -> Vec<crate::LetValue> {
+        let mut out: Vec<crate::LetValue> = self
+            .lets
+            .iter()
+            .map(|(name, e)| crate::LetValue {
+                name: (*name).to_string(),
+                name_loc: loc(e.file, e.decl.name.span),
+                quantity: match e.state {
+                    LetState::Done(Some(v)) => Some(v.q),
+                    _ => None,
+                },
+            })
+            .collect();
+        out.sort_by_key(|l| l.name_loc);
+        out
+    }
+
     /// Evaluate every `let` (so that errors in unused ones are reported too).
     pub fn evaluate_all_lets(&mut self) {
         let mut names: Vec<(&'a str, Loc)> = self

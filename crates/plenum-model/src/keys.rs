@@ -2,7 +2,7 @@
 //! its default and where that default comes from. The model checks files
 //! against it; hover and completion read it.
 
-use plenum_units::Dimension;
+use plenum_units::{Dimension, Measure};
 
 /// The kinds of block.
 #[derive(Clone, Copy, Debug, PartialEq, Eq, Hash)]
@@ -227,6 +227,27 @@ const fn key(
 }
 
 impl KeyDef {
+    /// How a value of this key is displayed (hover, reports): the trade's
+    /// measure for what the key means, not only for its dimension (a rated
+    /// capacity in tons, a zone load in Btu/h, a fan's static pressure in in.wg).
+    pub fn measure(&self) -> Option<Measure> {
+        match (self.block, self.name) {
+            (_, "rated" | "rated_sensible") => Some(Measure::Capacity),
+            (BlockKind::Zone, "sensible" | "latent") | (BlockKind::Ahu, "plenum_gain") => {
+                Some(Measure::Load)
+            }
+            (BlockKind::Fan, "static") => Some(Measure::StaticPressure),
+            (BlockKind::Fan, "power") => Some(Measure::Power),
+            (BlockKind::Site, "pressure") => Some(Measure::Pressure),
+            _ => match self.value {
+                ValueKind::Quantity(d) => Measure::for_dimension(d),
+                ValueKind::Ratio => Some(Measure::Percent),
+                ValueKind::Count => Some(Measure::Count),
+                _ => None,
+            },
+        }
+    }
+
     const fn default(mut self, text: &'static str, source: Source) -> KeyDef {
         self.default = Some(text);
         self.default_source = Some(source);
@@ -434,6 +455,22 @@ mod tests {
             assert!(!k.doc.is_empty());
             assert_eq!(k.default.is_some(), k.default_source.is_some());
         }
+    }
+
+    #[test]
+    fn every_quantity_key_has_a_display_measure_of_its_dimension() {
+        for k in KEYS {
+            if let ValueKind::Quantity(d) = k.value {
+                let m = k
+                    .measure()
+                    .unwrap_or_else(|| panic!("{} has no measure", k.name));
+                assert_eq!(m.dimension(), d, "{}", k.name);
+            }
+        }
+        assert_eq!(
+            key_def(B::Coil, "rated").and_then(KeyDef::measure),
+            Some(Measure::Capacity)
+        );
     }
 
     #[test]

@@ -45,6 +45,8 @@ pub struct Model {
     pub symbols: Symbols,
     /// Every property that was read, with its evaluated quantity, for hover.
     pub properties: Vec<PropertyInfo>,
+    /// Every `let`, with its value when it is one quantity, for hover.
+    pub lets: Vec<LetValue>,
     /// The folder `use` paths are confined to.
     pub project_root: PathBuf,
 }
@@ -71,6 +73,7 @@ impl Model {
             diagnostics,
             symbols: lowered.symbols,
             properties: lowered.properties,
+            lets: lowered.lets,
             files,
             project_root,
         }
@@ -88,6 +91,16 @@ impl Model {
                 .iter()
                 .any(|d| d.severity == Severity::Error)
     }
+}
+
+/// A `let` and what it evaluated to.
+#[derive(Clone, Debug, PartialEq)]
+pub struct LetValue {
+    pub name: String,
+    pub name_loc: Loc,
+    /// The value when it is one quantity (`None` for a compound value such as
+    /// an air state, or one with an error).
+    pub quantity: Option<plenum_units::Quantity>,
 }
 
 /// Lower one file's text on its own (a `use` in it finds nothing). Syntax

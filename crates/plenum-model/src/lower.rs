@@ -95,6 +95,7 @@ pub(crate) struct Lowering<'a> {
 }
 
 pub(crate) struct Lowered {
+    pub lets: Vec<crate::LetValue>,
     pub design: Design,
     pub diags: Vec<ModelDiagnostic>,
     pub symbols: crate::symbols::Symbols,
@@ -118,6 +119,7 @@ impl<'a> Lowering<'a> {
             property_at: HashMap::new(),
         };
         let design = l.lower();
+        let lets = l.ev.let_values();
         let mut diags = l.ev.diags;
         // Inherited values are evaluated once per block that inherits them:
         // keep one copy of each finding.
@@ -125,6 +127,7 @@ impl<'a> Lowering<'a> {
         diags.retain(|d| seen.insert((d.code, d.loc, d.message.clone())));
         diags.sort_by_key(|d| d.loc);
         Lowered {
+            lets,
             design,
             diags,
             symbols: l.ev.symbols,

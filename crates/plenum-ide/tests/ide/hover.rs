@@ -158,7 +158,7 @@ fn a_quantity_shows_its_value_in_the_other_system() {
         &OFFICE.replace("rated 10 ton", "rated 10 t$0on"),
         expect![[r#"
             [10 ton]
-            `rated` = 120.0 kBtu/h
+            `rated` = 10.0 ton
 
             In SI units: 35.2 kW
         "#]],
@@ -168,6 +168,29 @@ fn a_quantity_shows_its_value_in_the_other_system() {
         expect![[r#"
             [50 ft]
             `50 ft` = 50 ft = 15.2 m (SI units)
+        "#]],
+    );
+}
+
+#[test]
+fn a_let_shows_its_value_in_both_systems() {
+    check(
+        "let lights = 0.9 W/ft² * 2_400 ft²\nzone z { sensible 10 kBtu/h + lig$0hts }\n",
+        expect![[r#"
+            [lights]
+            ```plenum
+            let lights = 0.9 W/ft² * 2_400 ft²
+            ```
+
+            `lights` = 7.4 kBtu/h
+
+            In SI units: 2.2 kW
+
+            ---
+
+            `sensible` = 17,370 Btu/h
+
+            In SI units: 5,090 W
         "#]],
     );
 }

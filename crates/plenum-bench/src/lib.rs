@@ -1,0 +1,84 @@
+//! Benchmark support (a development tool, not published): generated
+//! campuses held in memory, percentiles, the process's peak memory, and a
+//! small JSON-RPC client for the language server over stdio.
+
+use std::path::{Path, PathBuf};
+use std::time::Duration;
+
+use plenum_gen::{Campus, generate};
+use plenum_model::MemoryFs;
+
+/// The folder the in-memory campuses live in.
+pub const CAMPUS_DIR: &str = "/campus";
+
+/// A generated campus in memory: its files under [`CAMPUS_DIR`], the root
+/// path, and the total size in bytes.
+pub struct Generated {
+    pub campus: Campus,
+    pub files: Vec<(PathBuf, String)>,
+    pub root: PathBuf,
+    pub bytes: usize,
+}
+
+impl Generated {
+    pub fn new(campus: Campus) -> Generated {
+        let files: Vec<(PathBuf, String)> = generate(&campus)
+            .into_iter()
+            .map(|(p, t)| (Path::new(CAMPUS_DIR).join(p), t))
+            .collect();
+        let root = Path::new(CAMPUS_DIR).join(campus.root());
+        let bytes = files.iter().map(|(_, t)| t.len()).sum();
+        Generated {
+            campus,
+            files,
+            root,
+            bytes,
+        }
+    }
+
+    /// Every file in a [`MemoryFs`].
+    pub fn fs(&self) -> MemoryFs {
+        let mut fs = MemoryFs::new();
+        for (p, t) in &self.files {
+            fs.insert(p, t.as_bytes());
+        }
+        fs
+    }
+
+    /// The paths of every file (what `plenum check DIR` is given).
+    pub fn paths(&self) -> Vec<PathBuf> {
+        self.files.iter().map(|(p, _)| p.clone()).collect()
+    }
+
+    /// The text of the one file of a single-file campus, or of the root.
+    pub fn root_text(&self) -> &str {
+        self.files
+            .iter()
+            .find(|(p, _)| *p == self.root)
+            .map_or("", |(_, t)| t.as_str())
+    }
+}
+
+/// The `p`-quantile (0 to 1) of sorted samples, nearest rank.
+pub fn percentile(sorted: &[Duration], p: f64) -> Duration {
+    if sorted.is_empty() {
+        return Duration::ZERO;
+    }
+    let i = ((sorted.len() as f64 - 1.0) * p).round() as usize;
+    sorted[i.min(sorted.len() - 1)]
+}
+
+/// Milliseconds, for printing.
+pub fn ms(d: Duration) -> f64 {
+    d.as_secs_f64() * 1e3
+}
+
+/// A field of `/proc/self/status` in kB (`VmHWM`: the peak resident set;
+/// `VmRSS`: the current one). `None` off Linux.
+pub fn proc_status_kb(field: &str) -> Option<u64> {
+    let status = std::fs::read_to_string("/proc/self/status").ok()?;
+    status.lines().find_map(|l| {
+        let rest = l.strip_prefix(field)?.strip_prefix(':')?;
+        rest.trim().trim_end_matches("kB").trim().parse().ok()
+    })
+}

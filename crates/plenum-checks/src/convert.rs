@@ -68,6 +68,9 @@ pub(crate) struct Ctx<'a> {
     pub model: &'a Model,
     /// Show SI figures beside IP ones (the project's display units).
     pub si: bool,
+    /// Per file: whether its items are in source order without overlap, so
+    /// that the block at a span can be found by binary search.
+    ordered: Vec<bool>,
 }
 
 impl<'a> Ctx<'a> {
@@ -76,7 +79,18 @@ impl<'a> Ctx<'a> {
             model.design.project.units.map(|u| u.value),
             Some(plenum_units::UnitSystem::Si)
         );
-        Ctx { model, si }
+        let ordered = model
+            .files
+            .iter()
+            .map(|f| {
+                f.parse
+                    .file
+                    .items
+                    .windows(2)
+                    .all(|w| w[0].span().end <= w[1].span().start)
+            })
+            .collect();
+        Ctx { model, si, ordered }
     }
 
     pub fn loc(&self, l: plenum_model::Loc) -> Loc {
@@ -91,10 +105,11 @@ impl<'a> Ctx<'a> {
     /// A location narrowed to a block's header when it spans a whole block
     /// (the engine locates defaults at the block they belong to).
     pub fn header_loc(&self, l: plenum_model::Loc) -> Loc {
+        let ordered = self.ordered.get(l.file.0 as usize).copied() == Some(true);
         let span = self
             .model
             .file(l.file)
-            .and_then(|f| find_block(&f.parse.file.items, l.span))
+            .and_then(|f| find_block(&f.parse.file.items, l.span, ordered))
             .map_or(l.span, header);
         self.loc(plenum_model::Loc { span, ..l })
     }
@@ -126,7 +141,13 @@ impl<'a> Ctx<'a> {
     }
 }
 
-fn find_block(items: &[Item], span: Span) -> Option<&Block> {
+/// The outermost block whose span is `span`, else the innermost block
+/// around it (the first in source order). `ordered` says the items are
+/// sorted without overlap: then only the items from the first that ends at
+/// or after `span` starts, to the last that starts at or before it, can
+/// hold it, and a binary search finds the first (a scan of every item per
+/// assumption was quadratic in the design).
+fn find_block(items: &[Item], span: Span, ordered: bool) -> Option<&Block> {
     fn within(b: &Block, span: Span) -> Option<&Block> {
         if b.span == span {
             return Some(b);
@@ -139,10 +160,18 @@ fn find_block(items: &[Item], span: Span) -> Option<&Block> {
             _ => None,
         })
     }
-    items.iter().find_map(|i| match i {
-        Item::Block(b) => within(b, span),
-        _ => None,
-    })
+    let from = if ordered {
+        items.partition_point(|i| i.span().end < span.start)
+    } else {
+        0
+    };
+    items[from..]
+        .iter()
+        .take_while(|i| !ordered || i.span().start <= span.start)
+        .find_map(|i| match i {
+            Item::Block(b) => within(b, span),
+            _ => None,
+        })
 }
 
 /// From a block's kind to its name, label or `like` (without the body).

@@ -187,7 +187,9 @@ mod inputs;
 mod result;
 mod ventilation;
 
-use plenum_model::{Ahu, Design};
+use std::collections::HashMap;
+
+use plenum_model::{Ahu, Design, ZoneId};
 
 pub use assumption::{AssumedValue, Assumption, Source, Subject};
 pub use chain::{
@@ -261,19 +263,25 @@ pub fn evaluate(design: &Design) -> Evaluation {
             },
         })
         .collect();
+    // The air handlers that serve each zone, in order, each once: one pass
+    // over the `serves` lists (a search of every air handler for every zone
+    // was quadratic in the design).
+    let mut serving: HashMap<ZoneId, Vec<usize>> = HashMap::new();
+    for (i, a) in design.ahus.iter().enumerate() {
+        for s in &a.serves {
+            let list = serving.entry(s.value).or_default();
+            if list.last() != Some(&i) {
+                list.push(i);
+            }
+        }
+    }
     let zones = design
         .zones
         .iter()
         .zip(zone_inputs)
         .zip(zone_assumptions)
         .map(|((z, inputs), assumptions)| {
-            let served_by: Vec<usize> = design
-                .ahus
-                .iter()
-                .enumerate()
-                .filter(|(_, a)| a.serves.iter().any(|s| s.value == z.id))
-                .map(|(i, _)| i)
-                .collect();
+            let served_by: Vec<usize> = serving.get(&z.id).cloned().unwrap_or_default();
             let flow = served_by.iter().find_map(|&i| {
                 let r = ahus.get(i)?.result.as_ref().ok()?;
                 r.governing().zones.iter().find(|f| f.zone == z.id).cloned()

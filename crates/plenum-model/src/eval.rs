@@ -43,6 +43,9 @@ pub(crate) struct Evaluator<'a> {
     pub symbols: Symbols,
     /// Names of the `let`s being evaluated, innermost last (for cycles).
     stack: Vec<&'a str>,
+    /// Every unit spelling read so far, parsed once: a design writes a few
+    /// dozen spellings tens of thousands of times.
+    units: HashMap<&'a str, Result<Unit, UnitError>>,
 }
 
 pub(crate) fn loc(file: FileId, span: Span) -> Loc {
@@ -57,7 +60,13 @@ impl<'a> Evaluator<'a> {
             diags: Vec::new(),
             symbols: Symbols::default(),
             stack: Vec::new(),
+            units: HashMap::new(),
         }
+    }
+
+    /// The unit a spelling stands for, parsed the first time it is seen.
+    fn unit(&mut self, text: &'a str) -> &Result<Unit, UnitError> {
+        self.units.entry(text).or_insert_with(|| Unit::parse(text))
     }
 
     pub fn text(&self, file: FileId) -> &'a str {
@@ -212,14 +221,15 @@ impl<'a> Evaluator<'a> {
                     });
                 };
                 let text = self.slice(file, unit_lit.span);
-                let unit = match Unit::parse(text) {
-                    Ok(u) => u,
+                let made = match self.unit(text) {
+                    Ok(unit) => Quantity::new(n.value, unit),
                     Err(err) => {
+                        let err = err.clone();
                         self.unit_error(file, unit_lit.span, text, err);
                         return None;
                     }
                 };
-                match Quantity::new(n.value, &unit) {
+                match made {
                     Ok(q) => Some(Evaluated { q, unitless: false }),
                     Err(err) => {
                         self.report(ModelDiagnostic::new(

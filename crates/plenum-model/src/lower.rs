@@ -1647,9 +1647,37 @@ enum Range {
 /// far below any physical meaning, so that a value reads back as written.
 fn ip(q: &Quantity, unit: &str) -> Option<f64> {
     let text = if unit == "Δ°F" { "°F" } else { unit };
-    let u = Unit::parse(text).ok()?;
-    let v = q.in_unit(&u).ok().filter(|v| v.is_finite())?;
+    let v = match ip_units().iter().find(|(s, _)| *s == text) {
+        Some((_, u)) => q.in_unit(u.as_ref()?),
+        None => q.in_unit(&Unit::parse(text).ok()?),
+    };
+    let v = v.ok().filter(|v| v.is_finite())?;
     Some(round_significant(v, 12))
+}
+
+/// The IP units the lowering converts to, parsed once for the process
+/// (parsing one per value cost more than the rest of the lowering).
+fn ip_units() -> &'static [(&'static str, Option<Unit>)] {
+    static UNITS: std::sync::OnceLock<Vec<(&'static str, Option<Unit>)>> =
+        std::sync::OnceLock::new();
+    UNITS.get_or_init(|| {
+        [
+            "Btu/h",
+            "ft",
+            "ft²",
+            "°F",
+            "hp",
+            "in.wg",
+            "psia",
+            "cfm",
+            "cfm/ft²",
+            "cfm/person",
+            "lb/lb",
+        ]
+        .into_iter()
+        .map(|s| (s, Unit::parse(s).ok()))
+        .collect()
+    })
 }
 
 fn round_significant(v: f64, digits: i32) -> f64 {

@@ -162,7 +162,7 @@ pub fn run(args: &AirArgs) -> Result<ExitCode, String> {
     };
     match args.format {
         AirFormat::Json => println!("{}", out.json()),
-        AirFormat::Text => print!("{}", out.text(args, pressure_psia)),
+        AirFormat::Text => print!("{}", out.text(args)),
     }
     Ok(ExitCode::SUCCESS)
 }
@@ -197,131 +197,117 @@ fn si_state(spec: AirSpec, p_psia: f64) -> Result<si::State, PsychroError> {
     }
 }
 
+/// The properties of the state in the output's unit system (°F, lb/lb, gr/lb,
+/// Btu/lb, ft³/lb, lb/ft³, psia — or °C, kg/kg, g/kg, kJ/kg, m³/kg, kg/m³, kPa).
+struct Props {
+    system: UnitSystem,
+    tdb: f64,
+    twb: f64,
+    tdp: f64,
+    rh_pct: f64,
+    w: f64,
+    /// Humidity ratio in grains per pound or grams per kilogram.
+    w_small: f64,
+    h: f64,
+    v: f64,
+    rho: f64,
+    pressure: f64,
+}
+
 impl Output {
+    fn props(&self) -> Props {
+        match self {
+            Output::Ip(s) => Props {
+                system: UnitSystem::Ip,
+                tdb: s.dry_bulb(),
+                twb: s.wet_bulb(),
+                tdp: s.dew_point(),
+                rh_pct: s.rh_percent(),
+                w: s.hum_ratio(),
+                w_small: s.hum_ratio() * ip::GRAINS_PER_POUND,
+                h: s.enthalpy(),
+                v: s.specific_volume(),
+                rho: s.density(),
+                pressure: s.pressure(),
+            },
+            Output::Si(s) => Props {
+                system: UnitSystem::Si,
+                tdb: s.dry_bulb(),
+                twb: s.wet_bulb(),
+                tdp: s.dew_point(),
+                rh_pct: s.rh_percent(),
+                w: s.hum_ratio(),
+                w_small: s.hum_ratio() * 1000.0,
+                h: s.enthalpy(),
+                v: s.specific_volume(),
+                rho: s.density(),
+                pressure: s.pressure() / 1000.0,
+            },
+        }
+    }
+
     fn json(&self) -> String {
-        let text = match self {
-            Output::Ip(s) => serde_json::to_string_pretty(&IpJson {
-                tdb_f: s.dry_bulb(),
-                twb_f: s.wet_bulb(),
-                tdp_f: s.dew_point(),
-                rh_pct: s.rh_percent(),
-                w_lb_lb: s.hum_ratio(),
-                w_gr_lb: s.hum_ratio() * ip::GRAINS_PER_POUND,
-                h_btu_lb: s.enthalpy(),
-                v_ft3_lb: s.specific_volume(),
-                rho_lb_ft3: s.density(),
-                pressure_psia: s.pressure(),
+        let p = self.props();
+        let text = match p.system {
+            UnitSystem::Ip => serde_json::to_string_pretty(&IpJson {
+                tdb_f: p.tdb,
+                twb_f: p.twb,
+                tdp_f: p.tdp,
+                rh_pct: p.rh_pct,
+                w_lb_lb: p.w,
+                w_gr_lb: p.w_small,
+                h_btu_lb: p.h,
+                v_ft3_lb: p.v,
+                rho_lb_ft3: p.rho,
+                pressure_psia: p.pressure,
             }),
-            Output::Si(s) => serde_json::to_string_pretty(&SiJson {
-                tdb_c: s.dry_bulb(),
-                twb_c: s.wet_bulb(),
-                tdp_c: s.dew_point(),
-                rh_pct: s.rh_percent(),
-                w_kg_kg: s.hum_ratio(),
-                w_g_kg: s.hum_ratio() * 1000.0,
-                h_kj_kg: s.enthalpy(),
-                v_m3_kg: s.specific_volume(),
-                rho_kg_m3: s.density(),
-                pressure_kpa: s.pressure() / 1000.0,
+            UnitSystem::Si => serde_json::to_string_pretty(&SiJson {
+                tdb_c: p.tdb,
+                twb_c: p.twb,
+                tdp_c: p.tdp,
+                rh_pct: p.rh_pct,
+                w_kg_kg: p.w,
+                w_g_kg: p.w_small,
+                h_kj_kg: p.h,
+                v_m3_kg: p.v,
+                rho_kg_m3: p.rho,
+                pressure_kpa: p.pressure,
             }),
         };
         text.unwrap_or_else(|_| "{}".to_string())
     }
 
-    fn text(&self, args: &AirArgs, p_psia: f64) -> String {
-        let (sys, rows): (UnitSystem, Vec<(&str, String)>) = match self {
-            Output::Ip(s) => {
-                let u = UnitSystem::Ip;
-                (
-                    u,
-                    vec![
-                        (
-                            "dry bulb",
-                            Measure::Temperature.format_number_with_unit(s.dry_bulb(), u),
-                        ),
-                        (
-                            "wet bulb",
-                            Measure::Temperature.format_number_with_unit(s.wet_bulb(), u),
-                        ),
-                        (
-                            "dew point",
-                            Measure::Temperature.format_number_with_unit(s.dew_point(), u),
-                        ),
-                        ("relative humidity", format!("{:.0} %", s.rh_percent())),
-                        (
-                            "humidity ratio",
-                            format!(
-                                "{}  ({})",
-                                Measure::HumidityRatio.format_number_with_unit(s.hum_ratio(), u),
-                                Measure::HumidityRatioGrains.format_number_with_unit(
-                                    s.hum_ratio() * ip::GRAINS_PER_POUND,
-                                    u
-                                )
-                            ),
-                        ),
-                        (
-                            "enthalpy",
-                            Measure::Enthalpy.format_number_with_unit(s.enthalpy(), u),
-                        ),
-                        (
-                            "specific volume",
-                            Measure::SpecificVolume.format_number_with_unit(s.specific_volume(), u),
-                        ),
-                        (
-                            "density",
-                            Measure::Density.format_number_with_unit(s.density(), u),
-                        ),
-                    ],
-                )
-            }
-            Output::Si(s) => {
-                let u = UnitSystem::Si;
-                (
-                    u,
-                    vec![
-                        (
-                            "dry bulb",
-                            Measure::Temperature.format_number_with_unit(s.dry_bulb(), u),
-                        ),
-                        (
-                            "wet bulb",
-                            Measure::Temperature.format_number_with_unit(s.wet_bulb(), u),
-                        ),
-                        (
-                            "dew point",
-                            Measure::Temperature.format_number_with_unit(s.dew_point(), u),
-                        ),
-                        ("relative humidity", format!("{:.0} %", s.rh_percent())),
-                        (
-                            "humidity ratio",
-                            format!(
-                                "{}  ({})",
-                                Measure::HumidityRatio.format_number_with_unit(s.hum_ratio(), u),
-                                Measure::HumidityRatioGrains
-                                    .format_number_with_unit(s.hum_ratio() * 1000.0, u)
-                            ),
-                        ),
-                        (
-                            "enthalpy",
-                            Measure::Enthalpy.format_number_with_unit(s.enthalpy(), u),
-                        ),
-                        (
-                            "specific volume",
-                            Measure::SpecificVolume.format_number_with_unit(s.specific_volume(), u),
-                        ),
-                        (
-                            "density",
-                            Measure::Density.format_number_with_unit(s.density(), u),
-                        ),
-                    ],
-                )
-            }
-        };
-        let pressure = match sys {
-            UnitSystem::Ip => Measure::Pressure.format_number_with_unit(p_psia, sys),
-            UnitSystem::Si => Measure::Pressure
-                .format_number_with_unit(p_psia * plenum_psychro::PA_PER_PSI / 1000.0, sys),
-        };
+    fn text(&self, args: &AirArgs) -> String {
+        let p = self.props();
+        let u = p.system;
+        let t = |v: f64| Measure::Temperature.format_number_with_unit(v, u);
+        let rows = [
+            ("dry bulb", t(p.tdb)),
+            ("wet bulb", t(p.twb)),
+            ("dew point", t(p.tdp)),
+            ("relative humidity", format!("{:.0} %", p.rh_pct)),
+            (
+                "humidity ratio",
+                format!(
+                    "{}  ({})",
+                    Measure::HumidityRatio.format_number_with_unit(p.w, u),
+                    Measure::HumidityRatioGrains.format_number_with_unit(p.w_small, u)
+                ),
+            ),
+            (
+                "enthalpy",
+                Measure::Enthalpy.format_number_with_unit(p.h, u),
+            ),
+            (
+                "specific volume",
+                Measure::SpecificVolume.format_number_with_unit(p.v, u),
+            ),
+            (
+                "density",
+                Measure::Density.format_number_with_unit(p.rho, u),
+            ),
+        ];
+        let pressure = Measure::Pressure.format_number_with_unit(p.pressure, u);
         let site = match (&args.elevation, &args.pressure) {
             (Some(e), _) => format!("at {} ({pressure})", e.trim()),
             (None, Some(_)) => format!("at {pressure}"),

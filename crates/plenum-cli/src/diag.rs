@@ -4,32 +4,7 @@
 
 use plenum_syntax::Span;
 
-#[derive(Clone, Copy, Debug, PartialEq, Eq, PartialOrd, Ord)]
-pub enum Severity {
-    Error,
-    Warning,
-    Info,
-}
-
-impl Severity {
-    pub fn as_str(self) -> &'static str {
-        match self {
-            Severity::Error => "error",
-            Severity::Warning => "warning",
-            Severity::Info => "info",
-        }
-    }
-}
-
-impl From<plenum_checks::Severity> for Severity {
-    fn from(s: plenum_checks::Severity) -> Severity {
-        match s {
-            plenum_checks::Severity::Error => Severity::Error,
-            plenum_checks::Severity::Warning => Severity::Warning,
-            plenum_checks::Severity::Info => Severity::Info,
-        }
-    }
-}
+pub use plenum_checks::Severity;
 
 /// One finding, located in one file.
 #[derive(Clone, Debug)]

@@ -143,7 +143,7 @@ fn to_diag(project: &Project, d: &Diagnostic) -> Diag {
     };
     Diag {
         code: d.code,
-        severity: Severity::from(d.severity),
+        severity: d.severity,
         message: d.message.clone(),
         span: d.loc.span,
         label: d.label.clone(),

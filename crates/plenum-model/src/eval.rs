@@ -1,6 +1,6 @@
 //! Evaluating expressions and `let` values to quantities.
 
-use std::collections::HashMap;
+use std::collections::{HashMap, HashSet};
 
 use plenum_syntax::{BinaryOp, Expr, Let, Span, UnaryOp, Value};
 use plenum_units::{Dimension, Quantity, QuantityError, Unit, UnitError};
@@ -46,6 +46,9 @@ pub(crate) struct Evaluator<'a> {
     /// Every unit spelling read so far, parsed once: a design writes a few
     /// dozen spellings tens of thousands of times.
     units: HashMap<&'a str, Result<Unit, UnitError>>,
+    /// The references recorded in `symbols`, so that recording one stays
+    /// constant time (a search of every reference was quadratic).
+    referenced: HashSet<(usize, Loc)>,
 }
 
 pub(crate) fn loc(file: FileId, span: Span) -> Loc {
@@ -61,6 +64,17 @@ impl<'a> Evaluator<'a> {
             symbols: Symbols::default(),
             stack: Vec::new(),
             units: HashMap::new(),
+            referenced: HashSet::new(),
+        }
+    }
+
+    /// Record a use of a defined name (once per place), as
+    /// [`Symbols::reference`] does.
+    pub fn reference(&mut self, def: usize, at: Loc) {
+        if self.referenced.insert((def, at)) {
+            self.symbols
+                .refs
+                .push(crate::symbols::SymbolRef { def, loc: at });
         }
     }
 
@@ -248,7 +262,7 @@ impl<'a> Evaluator<'a> {
                 let text = self.slice(file, name.span);
                 let use_loc = loc(file, name.span);
                 if let Some(sym) = self.let_symbol(text) {
-                    self.symbols.reference(sym, use_loc);
+                    self.reference(sym, use_loc);
                     let v = self.let_quantity(text, use_loc)?;
                     return Some(Evaluated {
                         q: v.q,

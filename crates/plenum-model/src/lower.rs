@@ -458,7 +458,7 @@ impl<'a> Lowering<'a> {
             };
             match found {
                 Some((parent, sym)) => {
-                    self.ev.symbols.reference(sym, at);
+                    self.ev.reference(sym, at);
                     if self.like_stack.contains(&block_key(parent)) {
                         self.ev.report(
                             ModelDiagnostic::new(
@@ -1050,7 +1050,7 @@ impl<'a> Lowering<'a> {
             match (zones.get(name), self.zones_by_name.get(name)) {
                 (Some(id), Some((_, sym))) => {
                     let sym = *sym;
-                    self.ev.symbols.reference(sym, at);
+                    self.ev.reference(sym, at);
                     if out.iter().any(|z: &At<ZoneId>| z.value == *id) {
                         self.ev.report(ModelDiagnostic::new(
                             ModelCode::DuplicateKey,
@@ -1093,7 +1093,7 @@ impl<'a> Lowering<'a> {
             let name = self.text(file, n.span);
             if let Some((lf, lv)) = self.ev.let_value(name) {
                 if let Some(sym) = self.ev.let_symbol(name) {
-                    self.ev.symbols.reference(sym, loc(file, n.span));
+                    self.ev.reference(sym, loc(file, n.span));
                 }
                 return (lf, lv.elements.iter().collect());
             }

@@ -6,8 +6,8 @@ use std::path::{Path, PathBuf};
 
 use plenum_engine::Evaluation;
 use plenum_model::fs::normalize;
-use plenum_model::{FileSystem, Model};
-use plenum_syntax::{Item, LineIndex, Span};
+use plenum_model::{FileSystem, Model, Parsed};
+use plenum_syntax::{Item, LineIndex, Parse, Span};
 
 use crate::config::Config;
 use crate::diagnostic::{Diagnostic, Loc};
@@ -86,56 +86,71 @@ impl Project {
 /// The design roots among `texts`: every file that no other file of the set
 /// `use`s. A file that another file `use`s is checked through that design.
 pub fn roots(texts: &[(PathBuf, String)]) -> Vec<PathBuf> {
-    let mut used = HashSet::new();
-    for (path, text) in texts {
-        let dir = path.parent().unwrap_or(Path::new(""));
-        for item in &plenum_syntax::parse(text).file.items {
-            if let Item::Use(u) = item {
-                used.insert(normalize(&dir.join(&u.path.value)));
-            }
-        }
-    }
-    let mut roots: Vec<PathBuf> = texts
+    let uses: Vec<(PathBuf, Vec<PathBuf>)> = texts
         .iter()
-        .map(|(p, _)| normalize(p))
+        .map(|(p, t)| {
+            let p = normalize(p);
+            let u = use_paths(&p, &plenum_syntax::parse(t));
+            (p, u)
+        })
+        .collect();
+    roots_of(&uses)
+}
+
+/// The files a parsed file `use`s, resolved against its folder.
+fn use_paths(path: &Path, parse: &Parse) -> Vec<PathBuf> {
+    let dir = path.parent().unwrap_or(Path::new(""));
+    parse
+        .file
+        .items
+        .iter()
+        .filter_map(|item| match item {
+            Item::Use(u) => Some(normalize(&dir.join(&u.path.value))),
+            _ => None,
+        })
+        .collect()
+}
+
+/// [`roots`] from each (normalised) file's `use`s.
+fn roots_of(uses: &[(PathBuf, Vec<PathBuf>)]) -> Vec<PathBuf> {
+    let used: HashSet<&PathBuf> = uses.iter().flat_map(|(_, u)| u).collect();
+    let mut roots: Vec<PathBuf> = uses
+        .iter()
+        .map(|(p, _)| p.clone())
         .filter(|p| !used.contains(p))
         .collect();
     // Files that only use each other in a circle have no root: the first of
     // each circle becomes one, so that the cycle is reported (once).
-    let mut reached = reachable(texts, &roots.iter().cloned().collect());
-    for (p, _) in texts {
-        let p = normalize(p);
-        if !reached.contains(&p) {
-            reached.extend(reachable(texts, &HashSet::from([p.clone()])));
-            roots.push(p);
+    let by_path: HashMap<&Path, &[PathBuf]> = uses
+        .iter()
+        .map(|(p, u)| (p.as_path(), u.as_slice()))
+        .collect();
+    let mut reached = HashSet::new();
+    for r in &roots {
+        reachable(&by_path, r, &mut reached);
+    }
+    for (p, _) in uses {
+        if !reached.contains(p) {
+            reachable(&by_path, p, &mut reached);
+            roots.push(p.clone());
         }
     }
     roots
 }
 
-/// The files reachable by `use` from `from` (themselves included).
-fn reachable(texts: &[(PathBuf, String)], from: &HashSet<PathBuf>) -> HashSet<PathBuf> {
-    let by_path: HashMap<PathBuf, &str> = texts
-        .iter()
-        .map(|(p, t)| (normalize(p), t.as_str()))
-        .collect();
-    let mut seen: HashSet<PathBuf> = from.clone();
-    let mut stack: Vec<PathBuf> = from.iter().cloned().collect();
+/// Add the files reachable by `use` from `from` (itself included) to `seen`.
+fn reachable(uses: &HashMap<&Path, &[PathBuf]>, from: &Path, seen: &mut HashSet<PathBuf>) {
+    if !seen.insert(from.to_path_buf()) {
+        return;
+    }
+    let mut stack: Vec<PathBuf> = vec![from.to_path_buf()];
     while let Some(p) = stack.pop() {
-        let Some(text) = by_path.get(&p) else {
-            continue;
-        };
-        let dir = p.parent().unwrap_or(Path::new("")).to_path_buf();
-        for item in &plenum_syntax::parse(text).file.items {
-            if let Item::Use(u) = item {
-                let q = normalize(&dir.join(&u.path.value));
-                if seen.insert(q.clone()) {
-                    stack.push(q);
-                }
+        for q in uses.get(p.as_path()).copied().unwrap_or_default() {
+            if seen.insert(q.clone()) {
+                stack.push(q.clone());
             }
         }
     }
-    seen
 }
 
 /// Check a set of design files read through `fs`.
@@ -184,11 +199,49 @@ pub fn check_files(fs: &dyn FileSystem, paths: &[PathBuf]) -> Project {
             Err(e) => project.unreadable.push((path, e.to_string())),
         }
     }
-    let roots = roots(&texts);
-    let by_path: HashMap<&Path, &str> = texts
-        .iter()
-        .map(|(p, t)| (p.as_path(), t.as_str()))
-        .collect();
+    // Each file is parsed once: for its `use`s here, and for its design.
+    let uses: Vec<(PathBuf, Vec<PathBuf>)>;
+    let mut pool: HashMap<PathBuf, (Parsed, usize)> = HashMap::new();
+    {
+        let parsed: Vec<(PathBuf, Parsed)> = texts
+            .into_iter()
+            .map(|(p, text)| {
+                let parse = plenum_syntax::parse(&text);
+                (p, Parsed { text, parse })
+            })
+            .collect();
+        uses = parsed
+            .iter()
+            .map(|(p, f)| (p.clone(), use_paths(p, &f.parse)))
+            .collect();
+        pool.extend(parsed.into_iter().map(|(p, f)| (p, (f, 0))));
+    }
+    let roots = roots_of(&uses);
+    // How many designs may read each file: the last one takes the parse,
+    // the others get a copy.
+    {
+        let by_path: HashMap<&Path, &[PathBuf]> = uses
+            .iter()
+            .map(|(p, u)| (p.as_path(), u.as_slice()))
+            .collect();
+        for root in &roots {
+            let mut reached = HashSet::new();
+            reachable(&by_path, root, &mut reached);
+            for p in reached {
+                if let Some((_, n)) = pool.get_mut(&p) {
+                    *n += 1;
+                }
+            }
+        }
+    }
+    let mut take = |path: &Path| -> Option<Parsed> {
+        let (_, n) = pool.get_mut(path)?;
+        if *n > 1 {
+            *n -= 1;
+            return pool.get(path).map(|(f, _)| f.clone());
+        }
+        pool.remove(path).map(|(f, _)| f)
+    };
     let mut configs: HashMap<PathBuf, Config> = HashMap::new();
     // Per finding of an absence (file, code, span): how many designs reported it.
     let mut unused: HashMap<(PathBuf, &'static str, Span), (usize, Diagnostic)> = HashMap::new();
@@ -196,10 +249,10 @@ pub fn check_files(fs: &dyn FileSystem, paths: &[PathBuf]) -> Project {
     let mut designs_of: HashMap<PathBuf, usize> = HashMap::new();
     let mut seen: HashSet<(PathBuf, &'static str, Span, String)> = HashSet::new();
     for root in &roots {
-        let Some(text) = by_path.get(root.as_path()) else {
+        let Some(root_file) = take(root) else {
             continue;
         };
-        let model = Model::build(fs, root, (*text).to_string());
+        let model = Model::build_parsed(fs, root, root_file, &mut take);
         let evaluation = plenum_engine::evaluate(&model.design);
         let config = match plenum_model::fs::config_file(fs, root) {
             Some(cfg) => configs

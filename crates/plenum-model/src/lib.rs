@@ -33,6 +33,13 @@ pub use load::SourceFile;
 pub use lower::PropertyInfo;
 pub use symbols::{SymbolDef, SymbolKind, SymbolRef, Symbols};
 
+/// A file's text and its parse, for [`Model::build_parsed`].
+#[derive(Clone, Debug)]
+pub struct Parsed {
+    pub text: String,
+    pub parse: plenum_syntax::Parse,
+}
+
 /// A design loaded from its root file and the files it uses.
 #[derive(Clone, Debug)]
 pub struct Model {
@@ -55,9 +62,24 @@ impl Model {
     /// Load the design whose root file is `path` with text `text` (already
     /// read by the caller); `use`d files are read through `fs`.
     pub fn build(fs: &dyn FileSystem, path: &Path, text: String) -> Model {
+        let parse = plenum_syntax::parse(&text);
+        Model::build_parsed(fs, path, Parsed { text, parse }, &mut |_| None)
+    }
+
+    /// [`Model::build`] for a caller that has already read and parsed
+    /// files: `root` is the root file's text and parse, and `parsed` is
+    /// asked for every file the design `use`s (by normalised path) before
+    /// the file is read through `fs` and parsed. The caller vouches that a
+    /// parse is of its text; the model is the one [`Model::build`] gives.
+    pub fn build_parsed(
+        fs: &dyn FileSystem,
+        path: &Path,
+        root: Parsed,
+        parsed: &mut dyn FnMut(&Path) -> Option<Parsed>,
+    ) -> Model {
         let project_root = fs::project_root(fs, path);
-        let mut loader = load::Loader::new(fs, &project_root);
-        let root = loader.add_root(path, text);
+        let mut loader = load::Loader::new(fs, &project_root, parsed);
+        let root = loader.add_root(path, root);
         let files = loader.files;
         let texts: Vec<&str> = files.iter().map(|f| f.text.as_str()).collect();
         let lowered = lower::Lowering::run(&files, &texts);

@@ -5,6 +5,7 @@ use std::path::{Path, PathBuf};
 
 use plenum_syntax::{Item, LineIndex, Parse, Span};
 
+use crate::Parsed;
 use crate::design::{FileId, Loc};
 use crate::diag::{ModelCode, ModelDiagnostic};
 use crate::fs::{FileSystem, normalize};
@@ -24,6 +25,8 @@ pub struct SourceFile {
 
 pub(crate) struct Loader<'a> {
     fs: &'a dyn FileSystem,
+    /// Files the caller has already read and parsed.
+    parsed: &'a mut dyn FnMut(&Path) -> Option<Parsed>,
     root_dir: PathBuf,
     pub files: Vec<SourceFile>,
     by_path: HashMap<PathBuf, FileId>,
@@ -33,9 +36,14 @@ pub(crate) struct Loader<'a> {
 }
 
 impl<'a> Loader<'a> {
-    pub fn new(fs: &'a dyn FileSystem, project_root: &Path) -> Loader<'a> {
+    pub fn new(
+        fs: &'a dyn FileSystem,
+        project_root: &Path,
+        parsed: &'a mut dyn FnMut(&Path) -> Option<Parsed>,
+    ) -> Loader<'a> {
         Loader {
             fs,
+            parsed,
             root_dir: normalize(project_root),
             files: Vec::new(),
             by_path: HashMap::new(),
@@ -45,15 +53,14 @@ impl<'a> Loader<'a> {
     }
 
     /// Add a file whose text is already known, and everything it uses.
-    pub fn add_root(&mut self, path: &Path, text: String) -> FileId {
-        let id = self.add(normalize(path), text);
+    pub fn add_root(&mut self, path: &Path, root: Parsed) -> FileId {
+        let id = self.add(normalize(path), root);
         self.follow_uses(id);
         id
     }
 
-    fn add(&mut self, path: PathBuf, text: String) -> FileId {
+    fn add(&mut self, path: PathBuf, Parsed { text, parse }: Parsed) -> FileId {
         let id = FileId(u32::try_from(self.files.len()).unwrap_or(u32::MAX));
-        let parse = plenum_syntax::parse(&text);
         let lines = LineIndex::new(&text);
         self.by_path.insert(path.clone(), id);
         self.files.push(SourceFile {
@@ -155,6 +162,11 @@ impl<'a> Loader<'a> {
             }
             return Some(existing);
         }
+        if let Some(known) = (self.parsed)(&path) {
+            let id = self.add(path, known);
+            self.follow_uses(id);
+            return Some(id);
+        }
         let bytes = match self.fs.read(&path) {
             Ok(b) => b,
             Err(_) => {
@@ -183,7 +195,8 @@ impl<'a> Loader<'a> {
                 return None;
             }
         };
-        let id = self.add(path, text);
+        let parse = plenum_syntax::parse(&text);
+        let id = self.add(path, Parsed { text, parse });
         self.follow_uses(id);
         Some(id)
     }

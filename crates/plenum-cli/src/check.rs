@@ -45,6 +45,11 @@ pub struct CheckArgs {
     /// handler's required and rated capacity then and now.
     #[arg(long, value_name = "REV")]
     pub baseline: Option<String>,
+    /// In text output, also list the infos (each default the engine used,
+    /// dry coils and similar notes); otherwise only their count is shown.
+    /// The other formats always carry them.
+    #[arg(long)]
+    pub infos: bool,
 }
 
 #[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
@@ -95,7 +100,7 @@ pub fn run(args: &CheckArgs) -> Result<ExitCode, String> {
     let mut out = String::new();
     match args.format {
         Format::Text => {
-            out.push_str(&render::project_text(&project));
+            out.push_str(&render::project_text(&project, args.infos));
             if !out.is_empty() && !out.ends_with("\n\n") {
                 out.push('\n');
             }
@@ -104,6 +109,10 @@ pub fn run(args: &CheckArgs) -> Result<ExitCode, String> {
                 out.push('\n');
             }
             out.push_str(&render::summary(&project));
+            let infos = project.count(plenum_checks::Severity::Info);
+            if infos > 0 && !args.infos {
+                out.push_str(" (--infos lists the infos: the defaults used and similar notes)");
+            }
             out.push_str("\n\n");
             out.push_str(CAUTION);
             out.push('\n');

@@ -153,19 +153,24 @@ fn to_diag(project: &Project, d: &Diagnostic) -> Diag {
 }
 
 /// Every file's diagnostics, grouped by file: errors and warnings with
-/// their source snippets, then the file's infos (assumptions and notes) one
-/// line each, so that a design with many defaults stays readable.
-pub fn project_text(project: &Project) -> String {
+/// their source snippets, then — when `infos` — the file's infos
+/// (assumptions and notes) one line each, so that a design with many defaults
+/// stays readable. Without `infos` they are only counted in the summary.
+pub fn project_text(project: &Project, infos: bool) -> String {
     let mut out = String::new();
+    let show_infos = infos;
     for f in &project.files {
-        if f.diagnostics.is_empty() {
-            continue;
-        }
         let name = display_path(&f.path);
-        let (infos, shown): (Vec<&Diagnostic>, Vec<&Diagnostic>) = f
+        let (mut infos, shown): (Vec<&Diagnostic>, Vec<&Diagnostic>) = f
             .diagnostics
             .iter()
             .partition(|d| d.severity == plenum_checks::Severity::Info);
+        if !show_infos {
+            infos.clear();
+        }
+        if shown.is_empty() && infos.is_empty() {
+            continue;
+        }
         let hidden = shown.len().saturating_sub(MAX_SHOWN);
         let report = FileReport {
             name: name.clone(),

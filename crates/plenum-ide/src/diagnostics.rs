@@ -20,21 +20,21 @@ pub enum Severity {
 }
 
 /// Another place that explains a diagnostic.
-#[derive(Clone, Debug, PartialEq, Eq)]
+#[derive(Clone, Debug, PartialEq, Eq, Hash)]
 pub struct Related {
     pub range: FileRange,
     pub message: String,
 }
 
 /// A fix: a title for the code action and its edits.
-#[derive(Clone, Debug, PartialEq, Eq)]
+#[derive(Clone, Debug, PartialEq, Eq, Hash)]
 pub struct Fix {
     pub title: String,
     pub change: SourceChange,
 }
 
 /// One diagnostic in one file.
-#[derive(Clone, Debug, PartialEq, Eq)]
+#[derive(Clone, Debug, PartialEq, Eq, Hash)]
 pub struct Diagnostic {
     /// The stable code (`unknown-key`, `syntax-error`, …).
     pub code: String,

@@ -66,14 +66,14 @@ pub use tokens::{SemanticToken, TokenKind};
 pub use world::Analysis;
 
 /// Replace the bytes of `span` by `new_text` (in one file).
-#[derive(Clone, Debug, PartialEq, Eq, PartialOrd, Ord)]
+#[derive(Clone, Debug, PartialEq, Eq, Hash, PartialOrd, Ord)]
 pub struct TextEdit {
     pub span: Span,
     pub new_text: String,
 }
 
 /// Edits to several files, each file's edits sorted and non-overlapping.
-#[derive(Clone, Debug, Default, PartialEq, Eq)]
+#[derive(Clone, Debug, Default, PartialEq, Eq, Hash)]
 pub struct SourceChange {
     pub edits: std::collections::BTreeMap<PathBuf, Vec<TextEdit>>,
 }

@@ -1,6 +1,7 @@
 //! The analysed state of the workspace: every design, built once, shared by
 //! every query of one [`Analysis`] snapshot.
 
+use std::collections::HashSet;
 use std::path::{Path, PathBuf};
 use std::sync::Arc;
 
@@ -166,18 +167,35 @@ impl Analysis {
         let path = normalize(path);
         let mut out: Vec<Diagnostic> = Vec::new();
         let designs: Vec<&DesignData> = self.designs_with(&path).collect();
+        // What is already in `out`, and (made when first needed) each
+        // design's diagnostics of this file: sets, so that the whole is
+        // linear in the diagnostics (searching `out` for each was quadratic).
+        let mut seen: HashSet<&Diagnostic> = HashSet::new();
+        let mut of_design: Option<Vec<HashSet<&Diagnostic>>> = None;
         for d in &designs {
             for (p, diag) in &d.diagnostics {
-                if *p != path || out.contains(diag) {
+                if *p != path || seen.contains(diag) {
                     continue;
                 }
-                if diagnostics::ABSENCE.contains(&diag.code.as_str())
-                    && !designs
-                        .iter()
-                        .all(|o| o.diagnostics.iter().any(|(q, e)| *q == path && e == diag))
-                {
-                    continue;
+                // With one design, that design is the one reporting it.
+                if diagnostics::ABSENCE.contains(&diag.code.as_str()) && designs.len() > 1 {
+                    let sets = of_design.get_or_insert_with(|| {
+                        designs
+                            .iter()
+                            .map(|o| {
+                                o.diagnostics
+                                    .iter()
+                                    .filter(|(q, _)| *q == path)
+                                    .map(|(_, e)| e)
+                                    .collect()
+                            })
+                            .collect()
+                    });
+                    if !sets.iter().all(|s| s.contains(diag)) {
+                        continue;
+                    }
                 }
+                seen.insert(diag);
                 out.push(diag.clone());
             }
         }

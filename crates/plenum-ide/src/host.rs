@@ -13,8 +13,8 @@ use std::path::{Path, PathBuf};
 use std::sync::Arc;
 
 use plenum_model::fs::{CONFIG_FILE, OverlayFs, normalize};
-use plenum_model::{FileSystem, ModelCode};
-use plenum_syntax::Item;
+use plenum_model::{FileSystem, ModelCode, Parsed};
+use plenum_syntax::{Item, Parse};
 
 use crate::world::{Analysis, DesignData};
 
@@ -157,11 +157,19 @@ impl AnalysisHost {
                 candidates.insert(path.clone(), text);
             }
         }
+        // A file whose `use`s must be found again is parsed here, and the
+        // design that reads it takes that parse rather than parsing again.
+        let mut fresh: HashMap<PathBuf, Parse> = HashMap::new();
         for (path, text) in &candidates {
             if !self.uses.contains_key(path) {
-                self.uses.insert(path.clone(), direct_uses(path, text));
+                let parse = plenum_syntax::parse(text);
+                self.uses.insert(path.clone(), direct_uses(path, &parse));
+                fresh.insert(path.clone(), parse);
             }
         }
+        // How many designs still to be built may read each fresh parse: the
+        // last takes it, the others get a copy.
+        let mut readers: HashMap<PathBuf, usize> = HashMap::new();
         let used: HashSet<&PathBuf> = candidates
             .keys()
             .flat_map(|c| {
@@ -186,8 +194,26 @@ impl AnalysisHost {
                 let design = match self.designs.get(&root) {
                     Some(d) => d.clone(),
                     None => {
-                        let text = candidates.get(&root).cloned().unwrap_or_default();
-                        let d = Arc::new(DesignData::build(&fs, &root, text));
+                        if readers.is_empty() && !fresh.is_empty() {
+                            readers = self.readers(&roots, &fresh);
+                        }
+                        let mut take = |path: &Path| -> Option<Parsed> {
+                            let text = candidates.get(path)?.clone();
+                            let left = readers.get_mut(path)?;
+                            let parse = if *left > 1 {
+                                *left -= 1;
+                                fresh.get(path)?.clone()
+                            } else {
+                                fresh.remove(path)?
+                            };
+                            Some(Parsed { text, parse })
+                        };
+                        let root_file = take(&root).unwrap_or_else(|| {
+                            let text = candidates.get(&root).cloned().unwrap_or_default();
+                            let parse = plenum_syntax::parse(&text);
+                            Parsed { text, parse }
+                        });
+                        let d = Arc::new(DesignData::build(&fs, &root, root_file, &mut take));
                         self.builds += 1;
                         self.designs.insert(root.clone(), d.clone());
                         d
@@ -212,6 +238,36 @@ impl AnalysisHost {
     }
 }
 
+impl AnalysisHost {
+    /// For each fresh parse, how many of the designs to build (the roots
+    /// without a built design) can reach its file by `use`. (A root found
+    /// later, through a `use` cycle, parses its files itself.)
+    fn readers(
+        &self,
+        roots: &[PathBuf],
+        fresh: &HashMap<PathBuf, Parse>,
+    ) -> HashMap<PathBuf, usize> {
+        let mut readers: HashMap<PathBuf, usize> = HashMap::new();
+        for root in roots.iter().filter(|r| !self.designs.contains_key(*r)) {
+            let mut seen: HashSet<&PathBuf> = HashSet::from([root]);
+            let mut stack = vec![root];
+            while let Some(p) = stack.pop() {
+                for q in self.uses.get(p).into_iter().flatten() {
+                    if seen.insert(q) {
+                        stack.push(q);
+                    }
+                }
+            }
+            for p in seen {
+                if fresh.contains_key(p) {
+                    *readers.entry(p.clone()).or_default() += 1;
+                }
+            }
+        }
+        readers
+    }
+}
+
 fn is_config(path: &Path) -> bool {
     path.file_name().is_some_and(|n| n == CONFIG_FILE)
 }
@@ -220,10 +276,10 @@ fn read_text(fs: &dyn FileSystem, path: &Path) -> Option<String> {
     String::from_utf8(fs.read(path).ok()?).ok()
 }
 
-/// The files a text `use`s, resolved against its folder.
-fn direct_uses(path: &Path, text: &str) -> Vec<PathBuf> {
+/// The files a parsed text `use`s, resolved against its folder.
+fn direct_uses(path: &Path, parse: &Parse) -> Vec<PathBuf> {
     let dir = path.parent().unwrap_or(Path::new(""));
-    plenum_syntax::parse(text)
+    parse
         .file
         .items
         .iter()

@@ -26,8 +26,16 @@ pub(crate) struct DesignData {
 }
 
 impl DesignData {
-    pub fn build(fs: &dyn plenum_model::FileSystem, root: &Path, text: String) -> DesignData {
-        let model = Model::build(fs, root, text);
+    /// Build the design whose root file is `root` (already read and
+    /// parsed); `parsed` offers files already parsed (see
+    /// [`Model::build_parsed`]).
+    pub fn build(
+        fs: &dyn plenum_model::FileSystem,
+        root: &Path,
+        root_file: plenum_model::Parsed,
+        parsed: &mut dyn FnMut(&Path) -> Option<plenum_model::Parsed>,
+    ) -> DesignData {
+        let model = Model::build_parsed(fs, root, root_file, parsed);
         let eval = plenum_engine::evaluate(&model.design);
         let config = plenum_checks::Config::discover(fs, root);
         let diagnostics = diagnostics::collect(&model, &eval, &config);

@@ -211,6 +211,15 @@ fn overlaps(a: plenum_syntax::Span, b: plenum_syntax::Span) -> bool {
 /// Drop a diagnostic that repeats an earlier one (the same code, place and
 /// message: an engine finding and error that say the same thing).
 fn dedupe(diags: &mut Vec<Diagnostic>) {
-    let mut seen = HashSet::new();
-    diags.retain(|d| seen.insert((d.code, d.loc.clone(), d.message.clone())));
+    // The keys borrow the diagnostics (a copy of every path and message
+    // cost more than the comparison).
+    let keep: Vec<bool> = {
+        let mut seen = HashSet::with_capacity(diags.len());
+        diags
+            .iter()
+            .map(|d| seen.insert((d.code, &d.loc, d.message.as_str())))
+            .collect()
+    };
+    let mut keep = keep.into_iter();
+    diags.retain(|_| keep.next().unwrap_or(true));
 }

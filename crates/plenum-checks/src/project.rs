@@ -247,7 +247,7 @@ pub fn check_files(fs: &dyn FileSystem, paths: &[PathBuf]) -> Project {
     let mut unused: HashMap<(PathBuf, &'static str, Span), (usize, Diagnostic)> = HashMap::new();
     // Per file: how many designs include it.
     let mut designs_of: HashMap<PathBuf, usize> = HashMap::new();
-    let mut seen: HashSet<(PathBuf, &'static str, Span, String)> = HashSet::new();
+    let mut seen: Seen = HashMap::new();
     for root in &roots {
         let Some(root_file) = take(root) else {
             continue;
@@ -315,15 +315,26 @@ pub fn check_files(fs: &dyn FileSystem, paths: &[PathBuf]) -> Project {
     project
 }
 
-fn push(
-    reports: &mut BTreeMap<PathBuf, FileReport>,
-    seen: &mut HashSet<(PathBuf, &'static str, Span, String)>,
-    d: Diagnostic,
-) {
-    if !seen.insert((d.loc.file.clone(), d.code, d.loc.span, d.message.clone())) {
+/// Per file, per (span, code): where the diagnostics pushed so far are in
+/// the file's report, so that a repeat (the same code, place and message)
+/// is found without keeping a copy of every path and message.
+type Seen = HashMap<PathBuf, HashMap<(Span, &'static str), Vec<usize>>>;
+
+fn push(reports: &mut BTreeMap<PathBuf, FileReport>, seen: &mut Seen, d: Diagnostic) {
+    let Some(r) = reports.get_mut(&d.loc.file) else {
+        return;
+    };
+    let of_file = match seen.get_mut(&d.loc.file) {
+        Some(m) => m,
+        None => seen.entry(d.loc.file.clone()).or_default(),
+    };
+    let at = of_file.entry((d.loc.span, d.code)).or_default();
+    if at
+        .iter()
+        .any(|&i| r.diagnostics.get(i).is_some_and(|e| e.message == d.message))
+    {
         return;
     }
-    if let Some(r) = reports.get_mut(&d.loc.file) {
-        r.diagnostics.push(d);
-    }
+    at.push(r.diagnostics.len());
+    r.diagnostics.push(d);
 }

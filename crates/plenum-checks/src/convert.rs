@@ -1,7 +1,7 @@
 //! Syntax errors, model findings and the engine's errors, findings and
 //! assumptions, turned into coded [`Diagnostic`]s with their wording.
 
-use std::collections::HashMap;
+use foldhash::{HashMap, HashMapExt};
 
 use plenum_engine::{
     AhuResult, AssumedValue, Assumption, DesignCase, EngineError, Evaluation, Finding, FindingKind,

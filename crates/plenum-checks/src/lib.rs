@@ -100,7 +100,7 @@ pub mod project;
 pub mod registry;
 pub mod suppress;
 
-use std::collections::HashSet;
+use foldhash::{HashSet, HashSetExt};
 
 use plenum_engine::Evaluation;
 use plenum_model::Model;

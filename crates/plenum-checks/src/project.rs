@@ -1,7 +1,9 @@
 //! The project runner shared by the CLI and the language server: from a set
 //! of files to every design's model, evaluation and diagnostics.
 
-use std::collections::{BTreeMap, HashMap, HashSet};
+use std::collections::BTreeMap;
+
+use foldhash::{HashMap, HashMapExt, HashSet, HashSetExt};
 use std::path::{Path, PathBuf};
 
 use plenum_engine::Evaluation;

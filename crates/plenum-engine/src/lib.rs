@@ -187,7 +187,7 @@ mod inputs;
 mod result;
 mod ventilation;
 
-use std::collections::HashMap;
+use foldhash::{HashMap, HashMapExt};
 
 use plenum_model::{Ahu, Design, ZoneId};
 

@@ -1,7 +1,7 @@
 //! The analysed state of the workspace: every design, built once, shared by
 //! every query of one [`Analysis`] snapshot.
 
-use std::collections::HashSet;
+use foldhash::{HashSet, HashSetExt};
 use std::path::{Path, PathBuf};
 use std::sync::Arc;
 

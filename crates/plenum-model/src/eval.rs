@@ -1,6 +1,6 @@
 //! Evaluating expressions and `let` values to quantities.
 
-use std::collections::{HashMap, HashSet};
+use foldhash::{HashMap, HashMapExt, HashSet, HashSetExt};
 
 use plenum_syntax::{BinaryOp, Expr, Let, Span, UnaryOp, Value};
 use plenum_units::{Dimension, Quantity, QuantityError, Unit, UnitError};

@@ -6,7 +6,7 @@
 //! keys against the key table; evaluate every value with its units; and
 //! assemble zones and air handlers.
 
-use std::collections::HashMap;
+use foldhash::{HashMap, HashMapExt, HashSet, HashSetExt};
 
 use plenum_syntax::{Block, Element, Entry, Expr, Item, Property, Span, Value};
 use plenum_units::{Dimension, Quantity, Unit, UnitSystem};
@@ -123,7 +123,7 @@ impl<'a> Lowering<'a> {
         let mut diags = l.ev.diags;
         // Inherited values are evaluated once per block that inherits them:
         // keep one copy of each finding.
-        let mut seen = std::collections::HashSet::new();
+        let mut seen = HashSet::new();
         diags.retain(|d| seen.insert((d.code, d.loc, d.message.clone())));
         diags.sort_by_key(|d| d.loc);
         Lowered {

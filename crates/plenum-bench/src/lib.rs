@@ -2,6 +2,10 @@
 //! campuses held in memory, percentiles, the process's peak memory, and a
 //! small JSON-RPC client for the language server over stdio.
 
+pub mod edits;
+pub mod lsp;
+pub mod rng;
+
 use std::path::{Path, PathBuf};
 use std::time::Duration;
 
@@ -81,4 +85,53 @@ pub fn proc_status_kb(field: &str) -> Option<u64> {
         let rest = l.strip_prefix(field)?.strip_prefix(':')?;
         rest.trim().trim_end_matches("kB").trim().parse().ok()
     })
+}
+
+/// Offsets to hover at: the names of `n` random air handlers, of `n`
+/// random zones, and `n` offsets anywhere in the text (on a character
+/// boundary), with what each is.
+pub fn hover_targets(text: &str, n: usize, seed: u64) -> Vec<(&'static str, usize)> {
+    let names = |kw: &str| -> Vec<usize> {
+        let mut out = Vec::new();
+        let mut at = 0usize;
+        for line in text.split_inclusive('\n') {
+            if let Some(rest) = line.strip_prefix(kw)
+                && rest.starts_with(|c: char| c.is_ascii_alphanumeric() || c == '_')
+            {
+                out.push(at + kw.len() + 1);
+            }
+            at += line.len();
+        }
+        out
+    };
+    let ahus = names("ahu ");
+    let zones = names("zone ");
+    let mut rng = rng::Rng::new(seed);
+    let mut out = Vec::with_capacity(3 * n);
+    for _ in 0..n {
+        if !ahus.is_empty() {
+            out.push(("air handler name", ahus[rng.below(ahus.len())]));
+        }
+        if !zones.is_empty() {
+            out.push(("zone name", zones[rng.below(zones.len())]));
+        }
+        let mut at = rng.below(text.len().max(1));
+        while at > 0 && !text.is_char_boundary(at) {
+            at -= 1;
+        }
+        out.push(("anywhere", at));
+    }
+    out
+}
+
+/// p50, p95 and the largest of some samples, in milliseconds, for printing.
+pub fn summary(samples: &mut [Duration]) -> String {
+    samples.sort();
+    format!(
+        "p50 {:.2} ms, p95 {:.2} ms, max {:.2} ms ({} samples)",
+        ms(percentile(samples, 0.50)),
+        ms(percentile(samples, 0.95)),
+        ms(percentile(samples, 1.0)),
+        samples.len()
+    )
 }

@@ -78,9 +78,9 @@ fn main() -> ExitCode {
         }
         report("parse", t.elapsed().as_secs_f64());
     }
-    let roots = plenum_checks::roots(&texts);
     let need_model = ["model", "engine", "checks"].iter().any(|s| runs(s));
     if need_model {
+        let roots = plenum_checks::roots(&texts);
         let t = Instant::now();
         let mut models = Vec::new();
         for _ in 0..repeat {
@@ -114,6 +114,25 @@ fn main() -> ExitCode {
             }
             report("checks", t.elapsed().as_secs_f64());
         }
+    }
+    if only.as_deref() == Some("ide") {
+        // Keystroke edits through the language server's analysis host.
+        let Some((path, text)) = texts.first() else {
+            return ExitCode::from(2);
+        };
+        let mut host = plenum_ide::AnalysisHost::new(RealFs);
+        host.set_document(path, text.clone());
+        std::hint::black_box(host.analysis().diagnostics(path));
+        let edits = plenum_bench::edits::key_typos(text, 2 * repeat, 1);
+        let mut current = text.clone();
+        let t = Instant::now();
+        for e in &edits {
+            e.apply(&mut current);
+            host.set_document(path, current.clone());
+            std::hint::black_box(host.analysis().diagnostics(path));
+        }
+        let per = t.elapsed().as_secs_f64() / edits.len() as f64;
+        println!("ide edit {:>9.2} ms per edit", per * 1e3);
     }
     if runs("check") {
         let t = Instant::now();

@@ -42,27 +42,43 @@ pub fn cfm(v: f64, si: bool) -> String {
     }
 }
 
+/// `v` with one decimal, exactly as `format!("{v:.1}")`. A whole number
+/// (most defaults are: 75 °F, 50 %, 100 %) is written from its integer,
+/// which skips the exact-decimal float formatting, the costliest part of a
+/// message.
+fn one_decimal(v: f64) -> String {
+    if v.fract() == 0.0 && v.abs() < 1e15 && !(v == 0.0 && v.is_sign_negative()) {
+        format!("{}.0", v as i64)
+    } else {
+        format!("{v:.1}")
+    }
+}
+
 /// `55.0 °F`, with °C for SI projects.
 pub fn temp(f: f64, si: bool) -> String {
     if si {
-        format!("{f:.1} °F ({:.1} °C)", (f - 32.0) / 1.8)
+        format!(
+            "{} °F ({} °C)",
+            one_decimal(f),
+            one_decimal((f - 32.0) / 1.8)
+        )
     } else {
-        format!("{f:.1} °F")
+        format!("{} °F", one_decimal(f))
     }
 }
 
 /// A temperature difference: `18.0 °F`, with K for SI projects.
 pub fn dt(f: f64, si: bool) -> String {
     if si {
-        format!("{f:.1} °F ({:.1} K)", f / 1.8)
+        format!("{} °F ({} K)", one_decimal(f), one_decimal(f / 1.8))
     } else {
-        format!("{f:.1} °F")
+        format!("{} °F", one_decimal(f))
     }
 }
 
 /// `52.2 %`
 pub fn pct(v: f64) -> String {
-    let s = format!("{v:.1}");
+    let s = one_decimal(v);
     let s = s.strip_suffix(".0").unwrap_or(&s).to_string();
     format!("{} %", if s == "-0" { "0" } else { &s })
 }
@@ -108,5 +124,35 @@ mod tests {
         assert_eq!(pct(50.0), "50 %");
         assert_eq!(temp(55.0, true), "55.0 °F (12.8 °C)");
         assert_eq!(cfm(1000.0, true), "1,000 cfm (472 L/s)");
+    }
+
+    #[test]
+    fn one_decimal_is_the_formatting_of_one_decimal() {
+        for v in [
+            0.0,
+            -0.0,
+            1.0,
+            -1.0,
+            75.0,
+            100.0,
+            -40.0,
+            0.25,
+            0.35,
+            2.5,
+            52.2004,
+            49.96,
+            -0.04,
+            1e14,
+            -1e14,
+            1e15,
+            1e16,
+            123_456_789.0,
+            0.05,
+            f64::MIN_POSITIVE,
+        ] {
+            assert_eq!(one_decimal(v), format!("{v:.1}"), "{v}");
+        }
+        assert_eq!(pct(-0.0), "0 %");
+        assert_eq!(temp(-0.0, false), "-0.0 °F");
     }
 }

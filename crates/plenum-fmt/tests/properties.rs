@@ -139,10 +139,21 @@ proptest! {
     }
 }
 
+/// The longest chain a value may hold (`plenum_syntax::MAX_OPERATORS`
+/// operators) formats; a longer one is a syntax error and is refused, so no
+/// chain is deep enough to exhaust the stack.
 #[test]
 fn long_operator_chains_do_not_exhaust_the_stack() {
-    let terms: Vec<String> = (0..3_000).map(|i| format!("{i} ft")).collect();
+    let terms: Vec<String> = (0..=plenum_syntax::MAX_OPERATORS)
+        .map(|i| format!("{i} ft"))
+        .collect();
     let text = format!("let total = {}\n", terms.join("+"));
     let out = plenum_fmt::format(&text).unwrap();
     assert_eq!(out, format!("let total = {}\n", terms.join(" + ")));
+    let terms: Vec<String> = (0..3_000).map(|i| format!("{i} ft")).collect();
+    let text = format!("let total = {}\n", terms.join("+"));
+    assert!(matches!(
+        plenum_fmt::format(&text),
+        Err(plenum_fmt::FormatError::Syntax { count: 1, .. })
+    ));
 }

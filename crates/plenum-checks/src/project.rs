@@ -2,6 +2,8 @@
 //! of files to every design's model, evaluation and diagnostics.
 
 use std::collections::BTreeMap;
+use std::sync::Mutex;
+use std::sync::atomic::{AtomicUsize, Ordering};
 
 use foldhash::{HashMap, HashMapExt, HashSet, HashSetExt};
 use std::path::{Path, PathBuf};
@@ -205,13 +207,7 @@ pub fn check_files(fs: &dyn FileSystem, paths: &[PathBuf]) -> Project {
     let uses: Vec<(PathBuf, Vec<PathBuf>)>;
     let mut pool: HashMap<PathBuf, (Parsed, usize)> = HashMap::new();
     {
-        let parsed: Vec<(PathBuf, Parsed)> = texts
-            .into_iter()
-            .map(|(p, text)| {
-                let parse = plenum_syntax::parse(&text);
-                (p, Parsed { text, parse })
-            })
-            .collect();
+        let parsed = parse_all(texts);
         uses = parsed
             .iter()
             .map(|(p, f)| (p.clone(), use_paths(p, &f.parse)))
@@ -250,12 +246,14 @@ pub fn check_files(fs: &dyn FileSystem, paths: &[PathBuf]) -> Project {
     // Per file: how many designs include it.
     let mut designs_of: HashMap<PathBuf, usize> = HashMap::new();
     let mut seen: Seen = HashMap::new();
+    // Reading (through `fs`) on this thread; lowering, evaluating and
+    // checking each design on as many threads as there are cores.
+    let mut loaded = Vec::with_capacity(roots.len());
     for root in &roots {
         let Some(root_file) = take(root) else {
             continue;
         };
-        let model = Model::build_parsed(fs, root, root_file, &mut take);
-        let evaluation = plenum_engine::evaluate(&model.design);
+        let files = Model::load(fs, root, root_file, &mut take);
         let config = match plenum_model::fs::config_file(fs, root) {
             Some(cfg) => configs
                 .entry(cfg.clone())
@@ -263,7 +261,29 @@ pub fn check_files(fs: &dyn FileSystem, paths: &[PathBuf]) -> Project {
                 .clone(),
             None => Config::new(),
         };
-        for f in &model.files {
+        loaded.push((root.clone(), files, config));
+    }
+    let bytes: usize = loaded
+        .iter()
+        .flat_map(|(_, l, _)| l.files())
+        .map(|f| f.text.len())
+        .sum();
+    let built = par_map(loaded, bytes, |(root, files, config)| {
+        let model = files.lower();
+        let evaluation = plenum_engine::evaluate(&model.design);
+        let diagnostics = crate::check(&model, &evaluation, &config);
+        (
+            Design {
+                root,
+                model,
+                evaluation,
+                config,
+            },
+            diagnostics,
+        )
+    });
+    for (design, diagnostics) in built {
+        for f in &design.model.files {
             *designs_of.entry(f.path.clone()).or_default() += 1;
             reports.entry(f.path.clone()).or_insert_with(|| FileReport {
                 path: f.path.clone(),
@@ -272,7 +292,7 @@ pub fn check_files(fs: &dyn FileSystem, paths: &[PathBuf]) -> Project {
                 diagnostics: Vec::new(),
             });
         }
-        for d in crate::check(&model, &evaluation, &config) {
+        for d in diagnostics {
             if ABSENCE.contains(&d.code) {
                 let key = (d.loc.file.clone(), d.code, d.loc.span);
                 unused.entry(key).or_insert((0, d)).0 += 1;
@@ -280,12 +300,7 @@ pub fn check_files(fs: &dyn FileSystem, paths: &[PathBuf]) -> Project {
             }
             push(&mut reports, &mut seen, d);
         }
-        project.designs.push(Design {
-            root: root.clone(),
-            model,
-            evaluation,
-            config,
-        });
+        project.designs.push(design);
     }
     let mut unused: Vec<_> = unused.into_iter().collect();
     unused.sort_by(|a, b| a.0.cmp(&b.0));
@@ -315,6 +330,73 @@ pub fn check_files(fs: &dyn FileSystem, paths: &[PathBuf]) -> Project {
     }
     project.files = reports.into_values().collect();
     project
+}
+
+/// Below this many bytes in all, work is done on the calling thread:
+/// starting threads costs more than it saves.
+const PARALLEL_BYTES: usize = 256 * 1024;
+
+/// `f` of every item, on as many threads as there are cores (each thread
+/// takes the next item not yet taken), when there are several items and
+/// `bytes` (the size of the work) reaches [`PARALLEL_BYTES`]; else on the
+/// calling thread. The results are in the order of the items.
+fn par_map<T: Send, R: Send>(items: Vec<T>, bytes: usize, f: impl Fn(T) -> R + Sync) -> Vec<R> {
+    let threads = std::thread::available_parallelism()
+        .map_or(1, |n| n.get())
+        .min(items.len());
+    if threads <= 1 || bytes < PARALLEL_BYTES {
+        return items.into_iter().map(f).collect();
+    }
+    let n = items.len();
+    let slots: Vec<Mutex<Option<T>>> = items.into_iter().map(|t| Mutex::new(Some(t))).collect();
+    let next = AtomicUsize::new(0);
+    let mut done: Vec<(usize, R)> = std::thread::scope(|scope| {
+        let handles: Vec<_> = (0..threads)
+            .map(|_| {
+                scope.spawn(|| {
+                    let mut out = Vec::new();
+                    loop {
+                        let i = next.fetch_add(1, Ordering::Relaxed);
+                        let Some(slot) = slots.get(i) else {
+                            break;
+                        };
+                        let item = match slot.lock() {
+                            Ok(mut g) => g.take(),
+                            Err(poisoned) => poisoned.into_inner().take(),
+                        };
+                        if let Some(item) = item {
+                            out.push((i, f(item)));
+                        }
+                    }
+                    out
+                })
+            })
+            .collect();
+        handles
+            .into_iter()
+            .flat_map(|h| match h.join() {
+                Ok(out) => out,
+                Err(panic) => std::panic::resume_unwind(panic),
+            })
+            .collect()
+    });
+    debug_assert_eq!(done.len(), n);
+    done.sort_by_key(|(i, _)| *i);
+    done.into_iter().map(|(_, r)| r).collect()
+}
+
+/// Parse every file (in parallel when there are several and enough text),
+/// largest first; the result is in the order given.
+fn parse_all(texts: Vec<(PathBuf, String)>) -> Vec<(PathBuf, Parsed)> {
+    let total: usize = texts.iter().map(|(_, t)| t.len()).sum();
+    let mut files: Vec<(usize, (PathBuf, String))> = texts.into_iter().enumerate().collect();
+    files.sort_by_key(|(_, (_, t))| std::cmp::Reverse(t.len()));
+    let mut parsed = par_map(files, total, |(i, (p, text))| {
+        let parse = plenum_syntax::parse(&text);
+        (i, (p, Parsed { text, parse }))
+    });
+    parsed.sort_by_key(|(i, _)| *i);
+    parsed.into_iter().map(|(_, f)| f).collect()
 }
 
 /// Per file, per (span, code): where the diagnostics pushed so far are in

@@ -40,6 +40,50 @@ pub struct Parsed {
     pub parse: plenum_syntax::Parse,
 }
 
+/// A design's files, read and parsed, not yet lowered ([`Model::load`]).
+#[derive(Clone, Debug)]
+pub struct Loaded {
+    root: FileId,
+    files: Vec<SourceFile>,
+    diagnostics: Vec<ModelDiagnostic>,
+    project_root: PathBuf,
+}
+
+impl Loaded {
+    /// The files read, the root first.
+    pub fn files(&self) -> &[SourceFile] {
+        &self.files
+    }
+
+    /// Lower the loaded files into the [`Model`] (names, `like`, units,
+    /// the typed design): what [`Model::build`] gives.
+    pub fn lower(self) -> Model {
+        let Loaded {
+            root,
+            files,
+            mut diagnostics,
+            project_root,
+        } = self;
+        let texts: Vec<&str> = files.iter().map(|f| f.text.as_str()).collect();
+        let lowered = lower::Lowering::run(&files, &texts);
+        diagnostics.extend(lowered.diags);
+        if files.iter().any(|f| f.parse.has_errors()) {
+            diagnostics.retain(|d| !d.code.is_global());
+        }
+        diagnostics.sort_by_key(|d| d.loc);
+        Model {
+            root,
+            design: lowered.design,
+            diagnostics,
+            symbols: lowered.symbols,
+            properties: lowered.properties,
+            lets: lowered.lets,
+            files,
+            project_root,
+        }
+    }
+}
+
 /// A design loaded from its root file and the files it uses.
 #[derive(Clone, Debug)]
 pub struct Model {
@@ -77,26 +121,26 @@ impl Model {
         root: Parsed,
         parsed: &mut dyn FnMut(&Path) -> Option<Parsed>,
     ) -> Model {
+        Model::load(fs, path, root, parsed).lower()
+    }
+
+    /// The first half of [`Model::build_parsed`]: find the project root and
+    /// read and parse every file the design `use`s, through `fs` (and
+    /// `parsed`). [`Loaded::lower`] does the rest without the file system,
+    /// so that designs can be lowered on other threads.
+    pub fn load(
+        fs: &dyn FileSystem,
+        path: &Path,
+        root: Parsed,
+        parsed: &mut dyn FnMut(&Path) -> Option<Parsed>,
+    ) -> Loaded {
         let project_root = fs::project_root(fs, path);
         let mut loader = load::Loader::new(fs, &project_root, parsed);
         let root = loader.add_root(path, root);
-        let files = loader.files;
-        let texts: Vec<&str> = files.iter().map(|f| f.text.as_str()).collect();
-        let lowered = lower::Lowering::run(&files, &texts);
-        let mut diagnostics = loader.diags;
-        diagnostics.extend(lowered.diags);
-        if files.iter().any(|f| f.parse.has_errors()) {
-            diagnostics.retain(|d| !d.code.is_global());
-        }
-        diagnostics.sort_by_key(|d| d.loc);
-        Model {
+        Loaded {
             root,
-            design: lowered.design,
-            diagnostics,
-            symbols: lowered.symbols,
-            properties: lowered.properties,
-            lets: lowered.lets,
-            files,
+            files: loader.files,
+            diagnostics: loader.diags,
             project_root,
         }
     }

@@ -197,7 +197,11 @@ impl<'a> Evaluator<'a> {
         out
     }
 
-    /// Evaluate every `let` (so that errors in unused ones are reported too).
+    /// Evaluate every `let` (so that errors in unused ones are reported
+    /// too), each after the `let`s it uses: the order comes from a depth-first
+    /// walk of the references with an explicit stack, so a chain of thousands
+    /// of `let`s deepens no recursion. A reference that closes a cycle is
+    /// reported where it is written, and the `let` it names gets no value.
     pub fn evaluate_all_lets(&mut self) {
         let mut names: Vec<(&'a str, Loc)> = self
             .lets
@@ -205,9 +209,109 @@ impl<'a> Evaluator<'a> {
             .map(|(n, e)| (*n, loc(e.file, e.decl.name.span)))
             .collect();
         names.sort_by_key(|(_, l)| *l);
-        for (name, l) in names {
-            let _ = self.let_quantity(name, l);
+        let refs: HashMap<&'a str, Vec<(&'a str, Loc)>> = names
+            .iter()
+            .map(|(n, _)| (*n, self.let_references(n)))
+            .collect();
+        #[derive(Clone, Copy, PartialEq)]
+        enum Mark {
+            Open,
+            Done,
         }
+        let mut mark: HashMap<&'a str, Mark> = HashMap::new();
+        let mut order: Vec<&'a str> = Vec::new();
+        for (root, _) in &names {
+            if mark.contains_key(root) {
+                continue;
+            }
+            // (let, index of the next reference to follow)
+            let mut stack: Vec<(&'a str, usize)> = vec![(root, 0)];
+            mark.insert(root, Mark::Open);
+            while let Some(top) = stack.last_mut() {
+                let name = top.0;
+                let list = refs.get(name).map(Vec::as_slice).unwrap_or(&[]);
+                if let Some(&(target, at)) = list.get(top.1) {
+                    top.1 += 1;
+                    match mark.get(target) {
+                        None => {
+                            mark.insert(target, Mark::Open);
+                            stack.push((target, 0));
+                        }
+                        Some(Mark::Open) => {
+                            let from = stack.iter().position(|(n, _)| *n == target).unwrap_or(0);
+                            let mut cycle: Vec<&str> =
+                                stack[from..].iter().map(|(n, _)| *n).collect();
+                            cycle.push(target);
+                            self.report(
+                                ModelDiagnostic::new(
+                                    ModelCode::LetCycle,
+                                    at,
+                                    format!(
+                                        "`let {target}` depends on itself: {}",
+                                        cycle.join(" → ")
+                                    ),
+                                )
+                                .label("used here while it is being defined")
+                                .help("break the cycle by giving one of these a value of its own"),
+                            );
+                            // It has no value: everything that uses it fails quietly.
+                            self.set_let_state(target, LetState::Done(None));
+                        }
+                        Some(Mark::Done) => {}
+                    }
+                } else {
+                    mark.insert(name, Mark::Done);
+                    order.push(name);
+                    stack.pop();
+                }
+            }
+        }
+        for name in order {
+            if let Some(l) = names.iter().find(|(n, _)| *n == name).map(|(_, l)| *l) {
+                let _ = self.let_quantity(name, l);
+            }
+        }
+    }
+
+    /// The `let`s that a `let`'s value names, with where each is named.
+    fn let_references(&self, name: &str) -> Vec<(&'a str, Loc)> {
+        let Some(e) = self.lets.get(name) else {
+            return Vec::new();
+        };
+        let (file, value) = (e.file, &e.decl.value);
+        let mut out = Vec::new();
+        let mut exprs: Vec<&'a Expr> = Vec::new();
+        let mut values: Vec<&'a Value> = vec![value];
+        while let Some(v) = values.pop() {
+            for el in &v.elements {
+                exprs.push(&el.expr);
+                if let Some(r) = &el.range_end {
+                    exprs.push(&r.expr);
+                }
+            }
+            for w in v.with.iter() {
+                values.push(&w.value);
+            }
+        }
+        while let Some(x) = exprs.pop() {
+            match x {
+                Expr::Name(n) => {
+                    let text = self.slice(file, n.span);
+                    if let Some((key, _)) = self.lets.get_key_value(text) {
+                        out.push((*key, loc(file, n.span)));
+                    }
+                }
+                Expr::Paren(p) => exprs.push(&p.inner),
+                Expr::Unary(u) => exprs.push(&u.operand),
+                Expr::Binary(b) => {
+                    exprs.push(&b.lhs);
+                    exprs.push(&b.rhs);
+                }
+                Expr::Number(_) | Expr::None(_) => {}
+            }
+        }
+        out.sort_by_key(|(_, l)| *l);
+        out
     }
 
     /// A value that must be one plain quantity: one element, no qualifier, no

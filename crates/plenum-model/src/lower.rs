@@ -87,6 +87,8 @@ pub(crate) struct Lowering<'a> {
     ahus_by_name: HashMap<&'a str, (Blk<'a>, usize)>,
     effective: HashMap<(FileId, u32), Effective<'a>>,
     like_stack: Vec<(FileId, u32)>,
+    /// Blocks whose `like` closes a cycle: their `like` is reported and not followed.
+    cut_like: HashSet<(FileId, u32)>,
     pub properties: Vec<PropertyInfo>,
     /// Where each recorded property is in `properties`, so that recording
     /// stays linear in the design (a search was quadratic: minutes for a
@@ -115,6 +117,7 @@ impl<'a> Lowering<'a> {
             ahus_by_name: HashMap::new(),
             effective: HashMap::new(),
             like_stack: Vec::new(),
+            cut_like: HashSet::new(),
             properties: Vec::new(),
             property_at: HashMap::new(),
         };
@@ -189,6 +192,20 @@ impl<'a> Lowering<'a> {
         for b in &ahus {
             self.define(*b, SymbolKind::Ahu);
         }
+
+        // Every `like`, parents first (no recursion along a chain).
+        let defined_zones: Vec<Blk<'a>> = zones
+            .iter()
+            .copied()
+            .filter(|b| self.is_definition(*b, SymbolKind::Zone))
+            .collect();
+        let defined_ahus: Vec<Blk<'a>> = ahus
+            .iter()
+            .copied()
+            .filter(|b| self.is_definition(*b, SymbolKind::Ahu))
+            .collect();
+        self.resolve_likes(&defined_zones, BlockKind::Zone);
+        self.resolve_likes(&defined_ahus, BlockKind::Ahu);
 
         let project = self.project(&projects);
         let site = self.site(&sites);
@@ -437,6 +454,50 @@ impl<'a> Lowering<'a> {
         self.ev.report(d);
     }
 
+    /// The block a block is `like`, when it names one that exists.
+    fn like_parent(&self, b: Blk<'a>, kind: BlockKind) -> Option<Blk<'a>> {
+        let like = b.block.like.as_ref()?;
+        let target = self.text(b.file, like.name.span);
+        let found = match kind {
+            BlockKind::Zone => self.zones_by_name.get(target),
+            _ => self.ahus_by_name.get(target),
+        };
+        found.map(|(p, _)| *p)
+    }
+
+    /// Resolve the `like` of every block, each after the block it is like:
+    /// a depth-first walk of the `like` links with an explicit stack, so a
+    /// chain of thousands of blocks deepens no recursion ([`Self::effective`]
+    /// then always finds its parent resolved). A link that closes a cycle is
+    /// cut, and reported by `effective`.
+    fn resolve_likes(&mut self, blocks: &[Blk<'a>], kind: BlockKind) {
+        let mut done: HashSet<(FileId, u32)> = HashSet::new();
+        let mut open: HashSet<(FileId, u32)> = HashSet::new();
+        for &root in blocks {
+            if done.contains(&block_key(root)) {
+                continue;
+            }
+            let mut stack = vec![root];
+            open.insert(block_key(root));
+            while let Some(&b) = stack.last() {
+                if let Some(p) = self.like_parent(b, kind) {
+                    let pk = block_key(p);
+                    if open.contains(&pk) && !done.contains(&pk) {
+                        // The parent is still being resolved: this link closes a cycle.
+                        self.cut_like.insert(block_key(b));
+                    } else if !done.contains(&pk) {
+                        open.insert(pk);
+                        stack.push(p);
+                        continue;
+                    }
+                }
+                stack.pop();
+                let _ = self.effective(b, kind);
+                done.insert(block_key(b));
+            }
+        }
+    }
+
     /// The effective keys of a zone or air handler after `like`.
     fn effective(&mut self, b: Blk<'a>, kind: BlockKind) -> Effective<'a> {
         if let Some(e) = self.effective.get(&block_key(b)) {
@@ -459,7 +520,9 @@ impl<'a> Lowering<'a> {
             match found {
                 Some((parent, sym)) => {
                     self.ev.reference(sym, at);
-                    if self.like_stack.contains(&block_key(parent)) {
+                    if self.cut_like.contains(&block_key(b))
+                        || self.like_stack.contains(&block_key(parent))
+                    {
                         self.ev.report(
                             ModelDiagnostic::new(
                                 ModelCode::LikeCycle,
